@@ -1,0 +1,17 @@
+// Package pvrec is the root of a library for recombination analysis in crystalline-silicon
+// solar cells: carrier statistics, intrinsic and defect recombination, surface and
+// diffused-region saturation-current densities, and the voltages they allow.
+//
+// The physics lives in sub-packages, one concept each, ordered from the floor up:
+//
+//   - fermi: Fermi–Dirac integrals and their inverse (pure mathematics).
+//   - silicon: the material model set at a temperature: band gap, densities of states,
+//     intrinsic density, band-gap narrowing, statistics, equilibrium carriers.
+//   - plots: figure builders on gonum/plot with one house style.
+//   - nb: display helpers for GoNB notebooks.
+//
+// Units are the field's throughout: cm, cm^-3, s, A/cm^2, V, K, eV.
+package pvrec
+
+// Version is the version of the pvrec library, stamped on results and figures.
+const Version = "0.1.0-dev"

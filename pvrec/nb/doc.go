@@ -1,0 +1,9 @@
+// Package nb holds the display helpers for pvrec's GoNB notebooks: figures shown inline as SVG,
+// HTML tables whose column headers carry units, and a provenance footer naming the pvrec
+// version and the model set behind the numbers.
+//
+// It is the only pvrec package that imports gonbui (github.com/janpfeifer/gonb/gonbui). The
+// HTML builders (TableHTML, FooterHTML) are pure functions, so they can be tested and reused
+// outside a notebook; Show, Table, Footer and Markdown send their output to the notebook and
+// do nothing visible when the program does not run under GoNB.
+package nb

@@ -1,0 +1,88 @@
+package nb
+
+import (
+	"fmt"
+	"html"
+	"strings"
+
+	"github.com/janpfeifer/gonb/gonbui"
+	"gonum.org/v1/plot"
+
+	"github.com/pvrec/pvrec"
+	"github.com/pvrec/pvrec/plots"
+)
+
+// Show displays p inline in the notebook as SVG at the house default size.
+func Show(p *plot.Plot) error {
+	svg, err := plots.SVG(p)
+	if err != nil {
+		return fmt.Errorf("nb: %v", err)
+	}
+	gonbui.DisplaySVG(string(svg))
+	return nil
+}
+
+// Markdown displays a Markdown text in the notebook, e.g. a computed conclusion.
+func Markdown(md string) {
+	gonbui.DisplayMarkdown(md)
+}
+
+// TableHTML returns an HTML table with a caption, a header row (put units in the headers,
+// e.g. "ni (cm⁻³)") and rows of already formatted cells. All text is HTML-escaped. It returns
+// an error if a row's length differs from the header's.
+func TableHTML(caption string, header []string, rows [][]string) (string, error) {
+	if len(header) == 0 {
+		return "", fmt.Errorf("nb: table %q has no header", caption)
+	}
+	for i, r := range rows {
+		if len(r) != len(header) {
+			return "", fmt.Errorf("nb: table %q row %d has %d cells, header has %d", caption, i, len(r), len(header))
+		}
+	}
+	var b strings.Builder
+	b.WriteString(`<table style="border-collapse:collapse;font-family:sans-serif;font-size:0.9em">`)
+	if caption != "" {
+		fmt.Fprintf(&b, `<caption style="text-align:left;font-weight:bold">%s</caption>`, html.EscapeString(caption))
+	}
+	b.WriteString("<tr>")
+	for _, h := range header {
+		fmt.Fprintf(&b, `<th style="border-bottom:1px solid #888;padding:2px 8px">%s</th>`, html.EscapeString(h))
+	}
+	b.WriteString("</tr>")
+	for _, r := range rows {
+		b.WriteString("<tr>")
+		for _, c := range r {
+			fmt.Fprintf(&b, `<td style="padding:2px 8px;text-align:right">%s</td>`, html.EscapeString(c))
+		}
+		b.WriteString("</tr>")
+	}
+	b.WriteString("</table>")
+	return b.String(), nil
+}
+
+// Table displays the table built by TableHTML in the notebook.
+func Table(caption string, header []string, rows [][]string) error {
+	h, err := TableHTML(caption, header, rows)
+	if err != nil {
+		return err
+	}
+	gonbui.DisplayHTML(h)
+	return nil
+}
+
+// FooterHTML returns the provenance footer for results computed with the given model set
+// (anything with a String method, such as *silicon.Material): the pvrec version and the
+// model set's description, so that a figure pasted into a report says what produced it.
+func FooterHTML(models fmt.Stringer) string {
+	desc := "model set not given"
+	if models != nil {
+		desc = models.String()
+	}
+	return fmt.Sprintf(`<p style="font-size:0.8em;color:#555">pvrec %s · %s</p>`,
+		html.EscapeString(pvrec.Version), html.EscapeString(desc))
+}
+
+// Footer displays the provenance footer of FooterHTML in the notebook.
+func Footer(models fmt.Stringer) {
+	gonbui.DisplayHTML(FooterHTML(models))
+}

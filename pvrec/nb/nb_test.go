@@ -1,0 +1,38 @@
+package nb
+
+import (
+	"strings"
+	"testing"
+)
+
+type fakeModels struct{}
+
+func (fakeModels) String() string { return "Si 300.00 K: <test>" }
+
+func TestTableHTML(t *testing.T) {
+	h, err := TableHTML("ni & BGN", []string{"N (cm⁻³)", "ni,eff (cm⁻³)"}, [][]string{{"1e19", "<2e10>"}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, want := range []string{"ni &amp; BGN", "<th", "N (cm⁻³)", "&lt;2e10&gt;"} {
+		if !strings.Contains(h, want) {
+			t.Errorf("table HTML lacks %q:\n%s", want, h)
+		}
+	}
+	if _, err := TableHTML("bad", []string{"a", "b"}, [][]string{{"1"}}); err == nil || !strings.Contains(err.Error(), "row 0 has 1 cells") {
+		t.Errorf("ragged row: error %v", err)
+	}
+	if _, err := TableHTML("none", nil, nil); err == nil {
+		t.Errorf("empty header accepted")
+	}
+}
+
+func TestFooterHTML(t *testing.T) {
+	f := FooterHTML(fakeModels{})
+	if !strings.Contains(f, "pvrec ") || !strings.Contains(f, "Si 300.00 K: &lt;test&gt;") {
+		t.Errorf("footer %q lacks version or escaped model set", f)
+	}
+	if !strings.Contains(FooterHTML(nil), "model set not given") {
+		t.Errorf("nil model set not reported")
+	}
+}

@@ -1,0 +1,11 @@
+// Package plots builds pvrec's figures on gonum.org/v1/plot with one house style: line plots
+// of curves versus doping, injection or depth, with optional logarithmic axes, and export to
+// SVG, PDF or PNG.
+//
+// The package holds no physics: callers compute curves with the pvrec packages and pass them
+// here as Series. Every builder validates its input and returns an error (never panics), for
+// example for a non-positive value on a logarithmic axis, which gonum/plot would otherwise
+// reject with a panic.
+//
+// Nothing inside pvrec imports this package except nb; notebooks and scripts use both.
+package plots

@@ -1,0 +1,180 @@
+package plots
+
+import (
+	"bytes"
+	"fmt"
+	"image/color"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+)
+
+// Series is one curve of a figure: paired X and Y values in the units named by the axes'
+// labels, and a legend label (empty for no legend entry).
+type Series struct {
+	Label  string    // legend entry, e.g. "Schenk1998"
+	X, Y   []float64 // data, same length, at least one point
+	Dashed bool      // draw the line dashed (for references and limits)
+	Points bool      // draw markers at the data points instead of a line (for measurements)
+}
+
+// Axes describes the frame of a figure: a title, axis labels with their units, e.g.
+// "Δn (cm⁻³)", and whether each axis is logarithmic.
+type Axes struct {
+	Title      string
+	XLabel     string
+	YLabel     string
+	LogX, LogY bool
+}
+
+// Default figure size used by SVG and Save: 16 cm × 10 cm, readable inline in a notebook
+// and in a two-column paper at full width.
+const (
+	DefaultWidth  = 16 * vg.Centimeter // default figure width
+	DefaultHeight = 10 * vg.Centimeter // default figure height
+)
+
+// palette is the house colour cycle (colour-blind-safe Okabe–Ito hues).
+var palette = []color.RGBA{
+	{0, 114, 178, 255},   // blue
+	{213, 94, 0, 255},    // vermillion
+	{0, 158, 115, 255},   // bluish green
+	{204, 121, 167, 255}, // reddish purple
+	{230, 159, 0, 255},   // orange
+	{86, 180, 233, 255},  // sky blue
+	{0, 0, 0, 255},       // black
+}
+
+// Lines returns a figure with one line (or marker set) per series in the house style. It
+// returns an error naming the series and point for mismatched lengths, empty series, NaN or
+// infinite values, or non-positive values on a logarithmic axis.
+func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
+	if len(series) == 0 {
+		return nil, fmt.Errorf("plots: no series to draw")
+	}
+	for i, s := range series {
+		if err := checkSeries(i, s, ax); err != nil {
+			return nil, err
+		}
+	}
+	p := plot.New()
+	p.Title.Text = ax.Title
+	p.X.Label.Text = ax.XLabel
+	p.Y.Label.Text = ax.YLabel
+	p.Add(plotter.NewGrid())
+	if ax.LogX {
+		p.X.Scale = plot.LogScale{}
+		p.X.Tick.Marker = plot.LogTicks{Prec: -1}
+	}
+	if ax.LogY {
+		p.Y.Scale = plot.LogScale{}
+		p.Y.Tick.Marker = plot.LogTicks{Prec: -1}
+	}
+	p.Legend.Top = true
+	for i, s := range series {
+		xy := make(plotter.XYs, len(s.X))
+		for k := range s.X {
+			xy[k].X, xy[k].Y = s.X[k], s.Y[k]
+		}
+		c := palette[i%len(palette)]
+		if s.Points {
+			sc, err := plotter.NewScatter(xy)
+			if err != nil {
+				return nil, fmt.Errorf("plots: series %d (%q): %v", i, s.Label, err)
+			}
+			sc.GlyphStyle.Color = c
+			sc.GlyphStyle.Shape = draw.CircleGlyph{}
+			sc.GlyphStyle.Radius = vg.Points(2)
+			p.Add(sc)
+			if s.Label != "" {
+				p.Legend.Add(s.Label, sc)
+			}
+			continue
+		}
+		l, err := plotter.NewLine(xy)
+		if err != nil {
+			return nil, fmt.Errorf("plots: series %d (%q): %v", i, s.Label, err)
+		}
+		l.Color = c
+		l.Width = vg.Points(1.5)
+		if s.Dashed {
+			l.Dashes = []vg.Length{vg.Points(5), vg.Points(3)}
+		}
+		p.Add(l)
+		if s.Label != "" {
+			p.Legend.Add(s.Label, l)
+		}
+	}
+	return p, nil
+}
+
+func checkSeries(i int, s Series, ax Axes) error {
+	if len(s.X) == 0 {
+		return fmt.Errorf("plots: series %d (%q) is empty", i, s.Label)
+	}
+	if len(s.X) != len(s.Y) {
+		return fmt.Errorf("plots: series %d (%q) has %d X values but %d Y values", i, s.Label, len(s.X), len(s.Y))
+	}
+	for k := range s.X {
+		x, y := s.X[k], s.Y[k]
+		if math.IsNaN(x) || math.IsInf(x, 0) || math.IsNaN(y) || math.IsInf(y, 0) {
+			return fmt.Errorf("plots: series %d (%q) point %d is not finite (x=%g, y=%g)", i, s.Label, k, x, y)
+		}
+		if ax.LogX && x <= 0 {
+			return fmt.Errorf("plots: series %d (%q) point %d: x=%g must be > 0 on a log axis", i, s.Label, k, x)
+		}
+		if ax.LogY && y <= 0 {
+			return fmt.Errorf("plots: series %d (%q) point %d: y=%g must be > 0 on a log axis", i, s.Label, k, y)
+		}
+	}
+	return nil
+}
+
+// Encode renders p in the given format ("svg", "pdf", "png", "eps", "jpg") at width w and
+// height h and returns the bytes.
+func Encode(p *plot.Plot, w, h vg.Length, format string) ([]byte, error) {
+	if p == nil {
+		return nil, fmt.Errorf("plots: nil plot")
+	}
+	if !(w > 0 && h > 0) {
+		return nil, fmt.Errorf("plots: figure size must be positive, got %v × %v", w, h)
+	}
+	wt, err := p.WriterTo(w, h, format)
+	if err != nil {
+		return nil, fmt.Errorf("plots: %v", err)
+	}
+	var buf bytes.Buffer
+	if _, err := wt.WriteTo(&buf); err != nil {
+		return nil, fmt.Errorf("plots: rendering %s: %v", format, err)
+	}
+	return buf.Bytes(), nil
+}
+
+// SVG renders p as an SVG document at the default size.
+func SVG(p *plot.Plot) ([]byte, error) {
+	return Encode(p, DefaultWidth, DefaultHeight, "svg")
+}
+
+// Save writes p to path at the default size; the extension (.svg, .pdf, .png) picks the format.
+func Save(p *plot.Plot, path string) error {
+	ext := strings.TrimPrefix(strings.ToLower(filepath.Ext(path)), ".")
+	switch ext {
+	case "svg", "pdf", "png":
+	default:
+		return fmt.Errorf("plots: unsupported file extension %q in %s (want .svg, .pdf or .png)", ext, path)
+	}
+	b, err := Encode(p, DefaultWidth, DefaultHeight, ext)
+	if err != nil {
+		return err
+	}
+	if err := os.WriteFile(path, b, 0o644); err != nil {
+		return fmt.Errorf("plots: %v", err)
+	}
+	return nil
+}

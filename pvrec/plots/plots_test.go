@@ -1,0 +1,66 @@
+package plots
+
+import (
+	"bytes"
+	"math"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+func TestLinesRejectsBadInput(t *testing.T) {
+	good := Series{Label: "a", X: []float64{1, 10}, Y: []float64{1, 2}}
+	tests := []struct {
+		name string
+		ax   Axes
+		s    []Series
+		want string
+	}{
+		{"no series", Axes{}, nil, "no series"},
+		{"empty", Axes{}, []Series{{Label: "e"}}, "empty"},
+		{"length mismatch", Axes{}, []Series{{Label: "m", X: []float64{1, 2}, Y: []float64{1}}}, "2 X values but 1 Y"},
+		{"NaN", Axes{}, []Series{{Label: "n", X: []float64{1, math.NaN()}, Y: []float64{1, 2}}}, "point 1 is not finite"},
+		{"log x zero", Axes{LogX: true}, []Series{good, {Label: "z", X: []float64{0, 1}, Y: []float64{1, 2}}}, "series 1 (\"z\") point 0: x=0"},
+		{"log y negative", Axes{LogY: true}, []Series{{Label: "y", X: []float64{1, 2}, Y: []float64{1, -2}}}, "y=-2"},
+	}
+	for _, tc := range tests {
+		_, err := Lines(tc.ax, tc.s...)
+		if err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%s: error %v, want it to contain %q", tc.name, err, tc.want)
+		}
+	}
+}
+
+func TestEncodeFormats(t *testing.T) {
+	p, err := Lines(Axes{Title: "t", XLabel: "Δn (cm⁻³)", YLabel: "τ (s)", LogX: true, LogY: true},
+		Series{Label: "line", X: []float64{1e10, 1e15, 1e17}, Y: []float64{1e-3, 5e-4, 1e-5}},
+		Series{Label: "dashed", X: []float64{1e10, 1e17}, Y: []float64{2e-3, 2e-3}, Dashed: true},
+		Series{Label: "points", X: []float64{1e12, 1e16}, Y: []float64{1e-3, 1e-4}, Points: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	svg, err := SVG(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !bytes.Contains(svg, []byte("<svg")) {
+		t.Errorf("SVG output lacks an <svg> element")
+	}
+	dir := t.TempDir()
+	for _, name := range []string{"f.svg", "f.pdf", "f.png"} {
+		path := filepath.Join(dir, name)
+		if err := Save(p, path); err != nil {
+			t.Fatalf("Save(%s): %v", name, err)
+		}
+		if fi, err := os.Stat(path); err != nil || fi.Size() == 0 {
+			t.Errorf("Save(%s) wrote nothing (%v)", name, err)
+		}
+	}
+	if err := Save(p, filepath.Join(dir, "f.bmp")); err == nil {
+		t.Errorf("Save accepted an unsupported extension")
+	}
+	if _, err := Encode(nil, DefaultWidth, DefaultHeight, "svg"); err == nil {
+		t.Errorf("Encode accepted a nil plot")
+	}
+}
