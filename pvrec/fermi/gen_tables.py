@@ -1,0 +1,200 @@
+#!/usr/bin/python3
+"""Generate tables.go: the coefficients used by package fermi.
+
+Run from this directory with Debian's python3-mpmath:
+
+    /usr/bin/python3 gen_tables.py > tables.go && gofmt -l .
+
+(or `go generate ./pvrec/fermi/`). Every number in tables.go is computed here from
+mpmath at 40 significant digits; nothing is typed in by hand.
+
+Normalisation: F_j(eta) = 1/Gamma(j+1) * int_0^inf t^j / (1 + exp(t - eta)) dt
+               = -polylog(j+1, -exp(eta))   (mpmath).
+
+Three kinds of table, for orders j = -1/2, 1/2, 3/2:
+
+1. Alternating exponential series (eta < chebLo):
+       F_j(eta) = sum_{k>=1} (-1)^(k+1) exp(k eta) / k^(j+1),
+   the expansion of -Li_{j+1}(-z) in powers of z = exp(eta) (convergent for eta < 0);
+   see e.g. J. S. Blakemore, Solid-State Electronics 25, 1067-1076 (1982).
+   Table: the coefficients (-1)^(k+1) k^-(j+1).
+
+2. Piecewise Chebyshev expansions on [chebLo, chebHi] in intervals of width 2
+   (the approach of A. J. MacLeod, ACM Trans. Math. Softw. 24, 1-12 (1998),
+   "Algorithm 779"; the coefficients here are our own, from interpolation of the
+   mpmath values at NODES Chebyshev points of the first kind on each interval,
+   truncated where the sum of the discarded |c_k| falls below 2e-17 times the
+   smallest value of F_j on the interval).
+
+3. Sommerfeld asymptotic expansion (eta >= chebHi):
+       F_j(eta) ~ eta^(j+1) sum_{k>=0} t_k eta^(-2k) / Gamma(j+2-2k),
+       t_0 = 1, t_k = 2 (1 - 2^(1-2k)) zeta(2k),
+   A. Sommerfeld, Z. Phys. 47, 1-32 (1928); see also R. B. Dingle,
+   Appl. Sci. Res. B 6, 225-239 (1957). Truncated after SOMM_TERMS terms, which the
+   script checks gives < 3e-17 relative error at eta = chebHi for every order.
+
+The Joyce-Dixon starting coefficients for the inverse of F_{1/2} are obtained by series
+reversion of (1): ln y + sum A_i y^i; W. B. Joyce and R. W. Dixon, Appl. Phys. Lett. 31,
+354-356 (1977), who give A_1..A_4 to six digits. We compute them exactly here.
+"""
+import mpmath as mp
+
+mp.mp.dps = 40
+
+ORDERS = [("mHalf", mp.mpf(-1) / 2), ("half", mp.mpf(1) / 2), ("threeHalf", mp.mpf(3) / 2)]
+CHEB_LO, CHEB_HI, WIDTH = -4, 40, 2
+NODES = 64
+SERIES_TERMS = 12  # enough for eta <= CHEB_LO = -4: exp(-4)^11 < 1e-19
+SOMM_TERMS = 12
+
+
+def F(j, eta):
+    return (-mp.polylog(j + 1, -mp.exp(eta))).real
+
+
+def cheb_coeffs(f, a, b, n):
+    # c_i = (2/n) sum_k f(x_k) cos(pi i (k+1/2)/n), c_0 halved: the interpolant
+    # sum_i c_i T_i(x) at the n first-kind nodes x_k.
+    th = [mp.pi * (k + mp.mpf(1) / 2) / n for k in range(n)]
+    mid, half = (a + b) / 2, (b - a) / 2
+    fs = [f(mid + half * mp.cos(t)) for t in th]
+    c = []
+    for i in range(n):
+        s = mp.fsum(fs[k] * mp.cos(i * th[k]) for k in range(n))
+        c.append(2 * s / n)
+    c[0] /= 2
+    return c
+
+
+def truncate(c, fmin):
+    tail = mp.mpf(0)
+    for i in range(len(c) - 1, -1, -1):
+        tail += abs(c[i])
+        if tail > mp.mpf("2e-17") * fmin:
+            return c[: i + 1]
+    return c
+
+
+def g(x):
+    return repr(float(x))
+
+
+def somm_coeffs(j):
+    out = []
+    for k in range(SOMM_TERMS):
+        tk = mp.mpf(1) if k == 0 else 2 * (1 - mp.mpf(2) ** (1 - 2 * k)) * mp.zeta(2 * k)
+        out.append(tk * mp.rgamma(j + 2 - 2 * k))
+    return out
+
+
+def joyce_dixon(nterms=5):
+    # Reverse y = sum_k (-1)^(k+1) x^k / k^(3/2) to x = y + b2 y^2 + ..., then
+    # ln x = ln y + ln(1 + b2 y + b3 y^2 + ...) = ln y + sum A_i y^i.
+    n = nterms + 1
+    a = [mp.mpf(0)] + [(-1) ** (k + 1) / mp.mpf(k) ** mp.mpf(1.5) for k in range(1, n + 1)]
+    # series reversion by fixed-point iteration on truncated power series
+    def mul(p, q):
+        r = [mp.mpf(0)] * (n + 1)
+        for i, pi in enumerate(p):
+            if pi == 0:
+                continue
+            for jj, qj in enumerate(q):
+                if i + jj > n:
+                    break
+                r[i + jj] += pi * qj
+        return r
+    x = [mp.mpf(0), mp.mpf(1)] + [mp.mpf(0)] * (n - 1)
+    for _ in range(n + 2):
+        # y = x - sum_{k>=2} a_k' x^k  with a' = -a  => x = y - sum_{k>=2} a_k x^k
+        acc = [mp.mpf(0)] * (n + 1)
+        p = x[:]
+        for k in range(2, n + 1):
+            p = mul(p, x) if k > 2 else mul(x, x)
+            for i in range(n + 1):
+                acc[i] += a[k] * p[i]
+        x = [mp.mpf(0), mp.mpf(1)] + [mp.mpf(0)] * (n - 1)
+        for i in range(n + 1):
+            x[i] -= acc[i]
+    # u = x/y - 1 as power series in y
+    u = [x[i + 1] for i in range(n)]
+    u[0] -= 1
+    # ln(1+u) = u - u^2/2 + u^3/3 ...
+    res = [mp.mpf(0)] * n
+    p = [mp.mpf(1)] + [mp.mpf(0)] * (n - 1)
+    for k in range(1, n):
+        q = [mp.mpf(0)] * n
+        for i in range(n):
+            for jj in range(n - i):
+                q[i + jj] += p[i] * u[jj]
+        p = q
+        for i in range(n):
+            res[i] += (-1) ** (k + 1) * p[i] / k
+    return res[1:nterms]  # A_1 .. A_{nterms-1}
+
+
+def main():
+    print("// Code generated by gen_tables.py; DO NOT EDIT.")
+    print("// Regenerate with: /usr/bin/python3 gen_tables.py > tables.go (mpmath %s, %d digits)."
+          % (mp.__version__, mp.mp.dps))
+    print()
+    print("package fermi")
+    print()
+    print("const (")
+    print("\tchebLo    = %d // lower end of the Chebyshev region" % CHEB_LO)
+    print("\tchebHi    = %d // upper end of the Chebyshev region; Sommerfeld above" % CHEB_HI)
+    print("\tchebWidth = %-2d // width of each Chebyshev interval" % WIDTH)
+    print("\tchebN     = %d // number of Chebyshev intervals" % ((CHEB_HI - CHEB_LO) // WIDTH))
+    print(")")
+    print()
+    for name, j in ORDERS:
+        # series
+        print("// %sSeries[k-1] = (-1)^(k+1) k^-(%s): alternating exponential series of F_%s." % (name, mp.nstr(j + 1, 3), mp.nstr(j, 3)))
+        print("var %sSeries = [...]float64{" % name)
+        for k in range(1, SERIES_TERMS + 1):
+            print("\t%s," % g((-1) ** (k + 1) / mp.mpf(k) ** (j + 1)))
+        print("}")
+        print()
+        # Sommerfeld
+        print("// %sSomm[k] = t_k / Γ(%s+2−2k): Sommerfeld expansion of F_%s in powers of η^-2." % (name, mp.nstr(j, 3), mp.nstr(j, 3)))
+        sc = somm_coeffs(j)
+        e = mp.mpf(CHEB_HI)
+        approx = e ** (j + 1) * mp.fsum(c * e ** (-2 * k) for k, c in enumerate(sc))
+        rel = abs(approx / F(j, e) - 1)
+        assert rel < mp.mpf("3e-17"), (name, rel)
+        print("// Relative truncation error at η = %d: %s." % (CHEB_HI, mp.nstr(rel, 2)))
+        print("var %sSomm = [...]float64{" % name)
+        for c in sc:
+            print("\t%s," % g(c))
+        print("}")
+        print()
+        # Chebyshev
+        offs, coefs, notes = [0], [], []
+        for i in range((CHEB_HI - CHEB_LO) // WIDTH):
+            a = mp.mpf(CHEB_LO + i * WIDTH)
+            b = a + WIDTH
+            c = truncate(cheb_coeffs(lambda x: F(j, x), a, b, NODES), F(j, a))
+            coefs.extend(c)
+            offs.append(len(coefs))
+            notes.append((float(a), float(b), len(c)))
+        print("// %sCheb holds the Chebyshev coefficients of F_%s on interval i, [chebLo+2i, chebLo+2i+2]," % (name, mp.nstr(j, 3)))
+        print("// in %sCheb[%sOff[i]:%sOff[i+1]], in the variable x = η − (chebLo+2i+1) ∈ [−1, 1]." % (name, name, name))
+        print("var %sOff = [...]uint16{%s}" % (name, ", ".join(str(o) for o in offs)))
+        print()
+        print("var %sCheb = [...]float64{" % name)
+        for (a, b, n), start, end in zip(notes, offs[:-1], offs[1:]):
+            print("\t// [%g, %g]: %d terms" % (a, b, n))
+            for c in coefs[start:end]:
+                print("\t%s," % g(c))
+        print("}")
+        print()
+    A = joyce_dixon(5)
+    print("// joyceDixon[i-1] = A_i of η ≈ ln y + Σ A_i y^i, the reversion of the series of F_{1/2}")
+    print("// (W. B. Joyce and R. W. Dixon, Appl. Phys. Lett. 31, 354-356 (1977)).")
+    print("var joyceDixon = [...]float64{")
+    for a in A:
+        print("\t%s," % g(a))
+    print("}")
+
+
+if __name__ == "__main__":
+    main()
