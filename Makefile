@@ -5,7 +5,8 @@
 #   make test   the same installs, then go vet, go test and an execution of every notebook
 #
 # Other targets: make setup (installs only), make bench, make reference (regenerate the committed
-# reference tables in testdata/reference from Debian's python3-mpmath / python3-scipy), make strip
+# reference tables in testdata/reference from Debian's python3-mpmath / python3-scipy: each generator
+# prints its table on stdout, written beside it as .csv), make strip
 # (clear notebook outputs before committing).
 
 SHELL := /bin/bash
@@ -56,7 +57,7 @@ bench:
 
 reference:
 	@/usr/bin/python3 -c 'import mpmath, scipy' 2>/dev/null || { echo "reference: needs Debian's python3-mpmath and python3-scipy"; exit 1; }
-	@for g in testdata/reference/*.py; do echo "reference: $$g"; /usr/bin/python3 $$g || exit 1; done
+	@for g in testdata/reference/*.py; do echo "reference: $$g -> $${g%.py}.csv"; /usr/bin/python3 $$g > $${g%.py}.csv.new && mv $${g%.py}.csv.new $${g%.py}.csv || exit 1; done
 
 strip:
 	jupyter nbconvert --clear-output --inplace notebooks/*.ipynb

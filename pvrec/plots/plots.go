@@ -178,3 +178,22 @@ func Save(p *plot.Plot, path string) error {
 	}
 	return nil
 }
+
+// Func evaluates f at every x and returns the curve as a Series with the given label. It is
+// the one loop a notebook would otherwise paste: f is typically a closure over a pvrec model.
+// It returns an error naming the label and x at the first failing evaluation, or for an
+// empty xs.
+func Func(label string, xs []float64, f func(x float64) (float64, error)) (Series, error) {
+	if len(xs) == 0 {
+		return Series{}, fmt.Errorf("plots: curve %q has no x values", label)
+	}
+	s := Series{Label: label, X: append([]float64(nil), xs...), Y: make([]float64, len(xs))}
+	for i, x := range xs {
+		y, err := f(x)
+		if err != nil {
+			return Series{}, fmt.Errorf("plots: curve %q at x=%g: %w", label, x, err)
+		}
+		s.Y[i] = y
+	}
+	return s, nil
+}

@@ -2,6 +2,7 @@ package plots
 
 import (
 	"bytes"
+	"errors"
 	"math"
 	"os"
 	"path/filepath"
@@ -64,3 +65,24 @@ func TestEncodeFormats(t *testing.T) {
 		t.Errorf("Encode accepted a nil plot")
 	}
 }
+
+func TestFunc(t *testing.T) {
+	s, err := Func("sq", []float64{1, 2, 3}, func(x float64) (float64, error) { return x * x, nil })
+	if err != nil || s.Label != "sq" || s.Y[2] != 9 {
+		t.Fatalf("Func: %+v, %v", s, err)
+	}
+	_, err = Func("bad", []float64{1, 2}, func(x float64) (float64, error) {
+		if x == 2 {
+			return 0, errTest
+		}
+		return x, nil
+	})
+	if err == nil || !strings.Contains(err.Error(), `curve "bad" at x=2`) {
+		t.Errorf("Func error %v", err)
+	}
+	if _, err := Func("empty", nil, nil); err == nil {
+		t.Errorf("Func accepted empty xs")
+	}
+}
+
+var errTest = errors.New("test failure")
