@@ -1,0 +1,26 @@
+package silicon
+
+import (
+	"gonum.org/v1/gonum/unit/constant"
+)
+
+// Physical constants used by the package, from the exact SI values (CODATA 2018) in
+// gonum.org/v1/gonum/unit/constant.
+const (
+	// BoltzmannJ is the Boltzmann constant k, J/K.
+	BoltzmannJ = float64(constant.Boltzmann)
+	// ElementaryCharge is the elementary charge q, C.
+	ElementaryCharge = float64(constant.ElementaryCharge)
+	// BoltzmannEV is k/q, the Boltzmann constant in eV/K (equivalently, the thermal
+	// voltage per kelvin in V/K): 8.617333262e-5.
+	BoltzmannEV = BoltzmannJ / ElementaryCharge
+)
+
+// ThermalVoltage returns the thermal voltage kT/q in V at temperature t in K
+// (25.852 mV at 300 K). It returns an error, naming t, if t is NaN, infinite or <= 0.
+func ThermalVoltage(t float64) (float64, error) {
+	if err := checkTemperature(t); err != nil {
+		return 0, err
+	}
+	return BoltzmannEV * t, nil
+}
