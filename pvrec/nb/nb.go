@@ -12,9 +12,10 @@ import (
 	"github.com/pvrec/pvrec/plots"
 )
 
-// Show displays p inline in the notebook as SVG at the house default size.
+// Show displays p inline in the notebook as a light SVG (plots.SVGInline) at the house
+// default size.
 func Show(p *plot.Plot) error {
-	svg, err := plots.SVG(p)
+	svg, err := plots.SVGInline(p)
 	if err != nil {
 		return fmt.Errorf("nb: %v", err)
 	}

@@ -7,5 +7,9 @@
 // example for a non-positive value on a logarithmic axis, which gonum/plot would otherwise
 // reject with a panic.
 //
+// Write units in labels as "cm^-3": the Liberation fonts that gonum/plot uses lack the
+// superscript minus sign. SVG embeds the fonts for files that travel; SVGInline is the light form
+// the notebooks display.
+//
 // Nothing inside pvrec imports this package except nb; notebooks and scripts use both.
 package plots

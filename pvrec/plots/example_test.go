@@ -8,7 +8,7 @@ import (
 
 // A figure of lifetime versus injection on log–log axes, rendered to SVG.
 func ExampleLines() {
-	p, err := plots.Lines(plots.Axes{XLabel: "Δn (cm⁻³)", YLabel: "τ (s)", LogX: true, LogY: true},
+	p, err := plots.Lines(plots.Axes{XLabel: "Δn (cm^-3)", YLabel: "τ (s)", LogX: true, LogY: true},
 		plots.Series{Label: "demo", X: []float64{1e13, 1e15, 1e17}, Y: []float64{2e-3, 1e-3, 1e-5}})
 	if err != nil {
 		fmt.Println(err)

@@ -13,6 +13,7 @@ import (
 	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgsvg"
 )
 
 // Series is one curve of a figure: paired X and Y values in the units named by the axes'
@@ -77,6 +78,10 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 		p.Y.Tick.Marker = plot.LogTicks{Prec: -1}
 	}
 	p.Legend.Top = true
+	p.Legend.Left = true
+	p.Legend.XOffs = vg.Points(6)
+	p.Legend.YOffs = -vg.Points(4)
+	p.Legend.Padding = vg.Points(1)
 	for i, s := range series {
 		xy := make(plotter.XYs, len(s.X))
 		for k := range s.X {
@@ -156,9 +161,38 @@ func Encode(p *plot.Plot, w, h vg.Length, format string) ([]byte, error) {
 	return buf.Bytes(), nil
 }
 
-// SVG renders p as an SVG document at the default size.
+// SVG renders p as a self-contained SVG document at the default size, with its fonts
+// embedded (about 0.5 MB), so that text is measured and drawn alike in every viewer: this is
+// the form for files that travel (Save uses it). Labels should use characters the Liberation
+// fonts have; write units as "cm^-3", not with superscript minus signs, which they lack.
 func SVG(p *plot.Plot) ([]byte, error) {
-	return Encode(p, DefaultWidth, DefaultHeight, "svg")
+	return renderSVG(p, true)
+}
+
+// SVGInline renders p as a light SVG document (a few tens of kB) without embedded fonts, for
+// display in a notebook. Text is set in Liberation Serif with the metric-compatible Times New
+// Roman and Times as fall-backs, so the layout computed by gonum/plot holds wherever one of them
+// is installed.
+func SVGInline(p *plot.Plot) ([]byte, error) {
+	b, err := renderSVG(p, false)
+	if err != nil {
+		return nil, err
+	}
+	return bytes.ReplaceAll(b, []byte("font-family:Liberation Serif;"),
+		[]byte("font-family:'Liberation Serif','Times New Roman',Times,serif;")), nil
+}
+
+func renderSVG(p *plot.Plot, embed bool) ([]byte, error) {
+	if p == nil {
+		return nil, fmt.Errorf("plots: nil plot")
+	}
+	c := vgsvg.NewWith(vgsvg.UseWH(DefaultWidth, DefaultHeight), vgsvg.EmbedFonts(embed))
+	p.Draw(draw.New(c))
+	var buf bytes.Buffer
+	if _, err := c.WriteTo(&buf); err != nil {
+		return nil, fmt.Errorf("plots: rendering svg: %v", err)
+	}
+	return buf.Bytes(), nil
 }
 
 // Save writes p to path at the default size; the extension (.svg, .pdf, .png) picks the format.
@@ -169,7 +203,13 @@ func Save(p *plot.Plot, path string) error {
 	default:
 		return fmt.Errorf("plots: unsupported file extension %q in %s (want .svg, .pdf or .png)", ext, path)
 	}
-	b, err := Encode(p, DefaultWidth, DefaultHeight, ext)
+	var b []byte
+	var err error
+	if ext == "svg" {
+		b, err = SVG(p)
+	} else {
+		b, err = Encode(p, DefaultWidth, DefaultHeight, ext)
+	}
 	if err != nil {
 		return err
 	}

@@ -34,7 +34,7 @@ func TestLinesRejectsBadInput(t *testing.T) {
 }
 
 func TestEncodeFormats(t *testing.T) {
-	p, err := Lines(Axes{Title: "t", XLabel: "Δn (cm⁻³)", YLabel: "τ (s)", LogX: true, LogY: true},
+	p, err := Lines(Axes{Title: "t", XLabel: "Δn (cm^-3)", YLabel: "τ (s)", LogX: true, LogY: true},
 		Series{Label: "line", X: []float64{1e10, 1e15, 1e17}, Y: []float64{1e-3, 5e-4, 1e-5}},
 		Series{Label: "dashed", X: []float64{1e10, 1e17}, Y: []float64{2e-3, 2e-3}, Dashed: true},
 		Series{Label: "points", X: []float64{1e12, 1e16}, Y: []float64{1e-3, 1e-4}, Points: true})
@@ -45,8 +45,18 @@ func TestEncodeFormats(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !bytes.Contains(svg, []byte("<svg")) {
-		t.Errorf("SVG output lacks an <svg> element")
+	if !bytes.Contains(svg, []byte("<svg")) || !bytes.Contains(svg, []byte("@font-face")) {
+		t.Errorf("SVG output lacks an <svg> element or its embedded fonts")
+	}
+	light, err := SVGInline(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if bytes.Contains(light, []byte("@font-face")) || !bytes.Contains(light, []byte("'Times New Roman'")) || len(light) > len(svg)/4 {
+		t.Errorf("SVGInline: want no embedded fonts and a fall-back font list (%d bytes vs %d)", len(light), len(svg))
+	}
+	if _, err := SVGInline(nil); err == nil {
+		t.Errorf("SVGInline accepted a nil plot")
 	}
 	dir := t.TempDir()
 	for _, name := range []string{"f.svg", "f.pdf", "f.png"} {
