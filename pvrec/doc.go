@@ -7,6 +7,10 @@
 //   - fermi: Fermi–Dirac integrals and their inverse (pure mathematics).
 //   - silicon: the material model set at a temperature: band gap, densities of states,
 //     intrinsic density, band-gap narrowing, statistics, equilibrium carriers.
+//   - recomb: bulk recombination (radiative, Auger, Shockley–Read–Hall with a defect
+//     catalogue), their sums and lifetimes.
+//   - j0: saturation-current densities of bases and diffused regions.
+//   - cell: device-level voltages: implied and ideal-diode open-circuit voltage.
 //   - plots: figure builders on gonum/plot with one house style.
 //   - nb: display helpers for GoNB notebooks.
 //

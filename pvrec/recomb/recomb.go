@@ -1,0 +1,170 @@
+package recomb
+
+import (
+	"fmt"
+	"math"
+	"strings"
+)
+
+// BulkRecombination is a bulk recombination mechanism. Rate returns the net recombination
+// rate R in cm^-3 s^-1 at the carrier state s: R is proportional to s.Excess = n p − ni,eff²,
+// so it vanishes in thermal equilibrium (detailed balance) and is positive under injection.
+// The lifetime of the mechanism is Δn/R (see Lifetime). Implementations are values, safe for
+// concurrent use, and return an error for an invalid state, invalid parameters or a state
+// outside their validity range.
+type BulkRecombination interface {
+	Rate(s State) (float64, error)
+}
+
+// Lifetime returns the lifetime τ = Δn/R in s of mechanism m at state s, for s.Dn > 0.
+// It returns +Inf if R = 0 (a mechanism that is switched off, such as a defect density of
+// zero), and an error for s.Dn <= 0 (the lifetime at Δn = 0 is a limit, not a ratio), an
+// error of m, or a negative or non-finite R.
+func Lifetime(m BulkRecombination, s State) (float64, error) {
+	if m == nil {
+		return 0, fmt.Errorf("recomb: Lifetime: mechanism m is nil")
+	}
+	if !(s.Dn > 0) || math.IsInf(s.Dn, 0) {
+		return 0, fmt.Errorf("recomb: Lifetime: excess carrier density Δn must be finite and > 0 cm^-3, got %g", s.Dn)
+	}
+	r, err := m.Rate(s)
+	if err != nil {
+		return 0, err
+	}
+	switch {
+	case r == 0:
+		return math.Inf(1), nil
+	case !(r > 0) || math.IsInf(r, 0):
+		return 0, fmt.Errorf("recomb: Lifetime: %s gives rate R = %g cm^-3 s^-1 at Δn = %g cm^-3; want finite and > 0",
+			name(m), r, s.Dn)
+	}
+	return s.Dn / r, nil
+}
+
+// Sum is the sum of independent mechanisms, itself a BulkRecombination: the effective bulk
+// lifetime 1/τ = Σ 1/τ_i is Lifetime(Sum{...}, s). An empty Sum has rate 0.
+type Sum []BulkRecombination
+
+// Rate returns the sum of the rates of the mechanisms in cm^-3 s^-1, or the first error.
+func (m Sum) Rate(s State) (float64, error) {
+	var r float64
+	for i, mech := range m {
+		if mech == nil {
+			return 0, fmt.Errorf("recomb: Sum: mechanism %d is nil", i)
+		}
+		ri, err := mech.Rate(s)
+		if err != nil {
+			return 0, err
+		}
+		r += ri
+	}
+	return r, nil
+}
+
+// String returns the names of the mechanisms joined by " + ", e.g.
+// "Intrinsic(Richter2012 + Trupke2003) + Fe_i".
+func (m Sum) String() string {
+	parts := make([]string, len(m))
+	for i, mech := range m {
+		parts[i] = name(mech)
+	}
+	return strings.Join(parts, " + ")
+}
+
+// Intrinsic is the intrinsic recombination of silicon, Auger plus radiative, as one named
+// mechanism: R = R_Auger + R_rad. NewIntrinsic returns the default pairing of
+// A. Richter, S. W. Glunz, F. Werner, J. Schmidt and A. Cuevas, Phys. Rev. B 86, 165202
+// (2012): Richter2012 Auger with the radiative coefficient B_low of Trupke2003 (without the
+// relative coefficient B_rel, see Trupke2003).
+type Intrinsic struct {
+	Auger     BulkRecombination // Auger mechanism, e.g. Richter2012
+	Radiative BulkRecombination // radiative mechanism, e.g. Trupke2003
+}
+
+// NewIntrinsic returns Intrinsic{Auger: NewRichter2012(), Radiative: NewTrupke2003()}.
+func NewIntrinsic() Intrinsic {
+	return Intrinsic{Auger: NewRichter2012(), Radiative: NewTrupke2003()}
+}
+
+// NewKerrCuevas2002Intrinsic returns the intrinsic recombination of M. J. Kerr and A. Cuevas,
+// J. Appl. Phys. 91, 2473 (2002): KerrCuevas2002 Auger with the constant radiative coefficient
+// B = 9.5e-15 cm³/s (of H. Schlangenotto, H. Maeder and W. Gerlach, Phys. Status Solidi A 21,
+// 357 (1974)) that their parameterisation includes.
+func NewKerrCuevas2002Intrinsic() Intrinsic {
+	return Intrinsic{Auger: NewKerrCuevas2002(), Radiative: ConstantRadiative{B: 9.5e-15, EscapeFraction: 1}}
+}
+
+// Rate returns R_Auger + R_rad in cm^-3 s^-1, or an error if a part is nil or fails.
+func (m Intrinsic) Rate(s State) (float64, error) {
+	if m.Auger == nil || m.Radiative == nil {
+		return 0, fmt.Errorf("recomb: Intrinsic: Auger and Radiative must both be set")
+	}
+	ra, err := m.Auger.Rate(s)
+	if err != nil {
+		return 0, err
+	}
+	rr, err := m.Radiative.Rate(s)
+	if err != nil {
+		return 0, err
+	}
+	return ra + rr, nil
+}
+
+// String returns "Intrinsic(Richter2012 + Trupke2003)" with the parts' names.
+func (m Intrinsic) String() string {
+	return fmt.Sprintf("Intrinsic(%s + %s)", name(m.Auger), name(m.Radiative))
+}
+
+// name returns the String of m if it has one, else its Go type.
+func name(m any) string {
+	switch v := m.(type) {
+	case nil:
+		return "<nil>"
+	case fmt.Stringer:
+		return v.String()
+	}
+	return strings.TrimPrefix(fmt.Sprintf("%T", m), "recomb.")
+}
+
+// DiffusionLength returns the diffusion length L = sqrt(D τ) in cm for lifetime tau in s and
+// diffusivity d in cm²/s (both finite and > 0; tau = +Inf gives L = +Inf). Use the minority
+// diffusivity in low injection and AmbipolarDiffusivity otherwise (textbook relation, e.g.
+// S. M. Sze and K. K. Ng, Physics of Semiconductor Devices, 3rd ed., Wiley 2007).
+func DiffusionLength(tau, d float64) (float64, error) {
+	if math.IsNaN(tau) || tau <= 0 {
+		return 0, fmt.Errorf("recomb: DiffusionLength: lifetime tau must be > 0 s, got %g", tau)
+	}
+	if err := checkPositive("DiffusionLength", "diffusivity d", d, "cm²/s"); err != nil {
+		return 0, err
+	}
+	return math.Sqrt(d * tau), nil
+}
+
+// AmbipolarDiffusivity returns the ambipolar diffusivity in cm²/s,
+//
+//	D_amb = (n + p) Dn Dp / (n Dn + p Dp),
+//
+// for electron and hole densities n, p in cm^-3 (finite, >= 0, not both 0) and electron and
+// hole diffusivities dn, dp in cm²/s (finite, > 0). It tends to the minority-carrier
+// diffusivity in low injection and to 2 Dn Dp/(Dn + Dp) in high injection
+// (W. van Roosbroeck, Phys. Rev. 91, 282 (1953); e.g. Sze and Ng, see DiffusionLength).
+func AmbipolarDiffusivity(n, p, dn, dp float64) (float64, error) {
+	if err := checkDensity("AmbipolarDiffusivity: electron density n", n); err != nil {
+		return 0, err
+	}
+	if err := checkDensity("AmbipolarDiffusivity: hole density p", p); err != nil {
+		return 0, err
+	}
+	if n+p == 0 {
+		return 0, fmt.Errorf("recomb: AmbipolarDiffusivity: electron and hole densities n, p are both 0")
+	}
+	if err := checkPositive("AmbipolarDiffusivity", "electron diffusivity dn", dn, "cm²/s"); err != nil {
+		return 0, err
+	}
+	if err := checkPositive("AmbipolarDiffusivity", "hole diffusivity dp", dp, "cm²/s"); err != nil {
+		return 0, err
+	}
+	// Divide first so that n Dn and p Dp cannot overflow for densities near 1e308.
+	s := n + p
+	return dn * dp / (n/s*dn + p/s*dp), nil
+}
