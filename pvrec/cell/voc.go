@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/silicon"
 )
@@ -127,37 +128,13 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 	if fhi == 0 {
 		return math.Exp(hi), nil
 	}
-	// Illinois iteration on [lo, hi]. f rises by kT/q to 2kT/q per unit of ln Δn, so a
-	// residual of a few ulp of voc means ln Δn is as accurate as it can be.
-	side := 0
-	ftol := 4e-16 * voc
-	for i := 0; i < 200 && hi-lo > 1e-15*math.Max(1, math.Abs(hi)); i++ {
-		x := (lo*fhi - hi*flo) / (fhi - flo)
-		if !(x > lo && x < hi) {
-			x = 0.5 * (lo + hi)
-		}
-		fx, err := f(x)
-		if err != nil {
-			return 0, err
-		}
-		if math.Abs(fx) <= ftol {
-			return math.Exp(x), nil
-		}
-		if fx < 0 {
-			lo, flo = x, fx
-			if side == -1 {
-				fhi /= 2
-			}
-			side = -1
-		} else {
-			hi, fhi = x, fx
-			if side == 1 {
-				flo /= 2
-			}
-			side = 1
-		}
+	// Brent's method on [lo, hi] in x = ln Δn; f rises by kT/q to 2kT/q per unit of x, so an
+	// absolute tolerance of 1e-15 in x is as accurate as Δn can be represented.
+	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-15, 200)
+	if err != nil {
+		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V: %w", voc, err)
 	}
-	return math.Exp(0.5 * (lo + hi)), nil
+	return math.Exp(x), nil
 }
 
 // IdealDiodeVoc returns the open-circuit voltage in V of an ideal diode with saturation

@@ -1,0 +1,84 @@
+package cell
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/silicon"
+)
+
+// MinExcess is the smallest excess carrier density, in cm^-3, that SteadyStateExcess searches:
+// below it a steady state is of no practical interest and lifetimes lose meaning.
+const MinExcess = 1e-6
+
+// GenerationRate returns the volume-averaged generation rate in cm^-3 s^-1 of a wafer of
+// thickness w in cm (finite, > 0) that collects the photogenerated current density jph in
+// A/cm^2 (finite, >= 0): G = Jph/(q W). This is the usual link between a one-sun-like current
+// (about 0.04 A/cm^2 for silicon; common practice, no source) and the steady-state excess
+// carrier density of a lifetime sample under uniform generation.
+func GenerationRate(jph, w float64) (float64, error) {
+	if math.IsNaN(jph) || math.IsInf(jph, 0) || jph < 0 {
+		return 0, fmt.Errorf("cell: GenerationRate: current density jph must be finite and >= 0 A/cm^2, got %g", jph)
+	}
+	if err := checkPos("GenerationRate", "thickness w", w, "cm"); err != nil {
+		return 0, err
+	}
+	return jph / (silicon.ElementaryCharge * w), nil
+}
+
+// SteadyStateExcess returns the excess carrier density Δn in cm^-3 at which recombination
+// balances the generation rate g in cm^-3 s^-1 (finite, >= 0):
+//
+//	Δn / τ(Δn) = g,
+//
+// where tau returns the effective lifetime in s at Δn (bulk, surfaces, or both, e.g.
+// func(dn float64) (float64, error) { return bulk.Lifetime(m, dn) }). The balance is solved
+// in ln Δn by Brent's method over [MinExcess, MaxExcess] cm^-3, assuming the recombination
+// rate Δn/τ(Δn) increases with Δn (true of every mechanism in recomb and surface; if it does
+// not, the root returned is one of several). It returns 0 for g = 0, and an error naming g
+// if the balance lies outside the searched range or tau fails or returns a non-positive or
+// non-finite lifetime.
+func SteadyStateExcess(g float64, tau func(dn float64) (float64, error)) (float64, error) {
+	if math.IsNaN(g) || math.IsInf(g, 0) || g < 0 {
+		return 0, fmt.Errorf("cell: SteadyStateExcess: generation rate g must be finite and >= 0 cm^-3 s^-1, got %g", g)
+	}
+	if tau == nil {
+		return 0, fmt.Errorf("cell: SteadyStateExcess: lifetime function tau is nil")
+	}
+	if g == 0 {
+		return 0, nil
+	}
+	// f(x) = ln(R(e^x)/g) with R = Δn/τ, increasing in x.
+	f := func(x float64) (float64, error) {
+		dn := math.Exp(x)
+		t, err := tau(dn)
+		if err != nil {
+			return 0, fmt.Errorf("cell: SteadyStateExcess: at Δn = %g cm^-3: %w", dn, err)
+		}
+		if math.IsNaN(t) || math.IsInf(t, 0) || t <= 0 {
+			return 0, fmt.Errorf("cell: SteadyStateExcess: lifetime %g s at Δn = %g cm^-3 must be finite and > 0", t, dn)
+		}
+		return x - math.Log(t) - math.Log(g), nil
+	}
+	lo, hi := math.Log(MinExcess), math.Log(MaxExcess)
+	flo, err := f(lo)
+	if err != nil {
+		return 0, err
+	}
+	fhi, err := f(hi)
+	if err != nil {
+		return 0, err
+	}
+	if flo > 0 {
+		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances below Δn = %g cm^-3", g, MinExcess)
+	}
+	if fhi < 0 {
+		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances above Δn = %g cm^-3", g, MaxExcess)
+	}
+	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-13, 300)
+	if err != nil {
+		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1: %w", g, err)
+	}
+	return math.Exp(x), nil
+}

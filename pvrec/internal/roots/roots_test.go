@@ -1,0 +1,96 @@
+package roots
+
+import (
+	"errors"
+	"math"
+	"testing"
+)
+
+func TestBrentKnownRoots(t *testing.T) {
+	tests := []struct {
+		name string
+		f    func(float64) float64
+		a, b float64
+		want float64
+	}{
+		{"linear", func(x float64) float64 { return 2*x - 1 }, -3, 4, 0.5},
+		{"sqrt2", func(x float64) float64 { return x*x - 2 }, 0, 2, math.Sqrt2},
+		{"cos", math.Cos, 1, 2, math.Pi / 2},
+		{"steep exp", func(x float64) float64 { return math.Expm1(50 * x) }, -1, 0.5, 0},
+		{"flat cubic", func(x float64) float64 { return (x - 1) * (x - 1) * (x - 1) }, 0, 3, 1},
+	}
+	for _, tc := range tests {
+		f := func(x float64) (float64, error) { return tc.f(x), nil }
+		got, err := Brent(f, tc.a, tc.b, tc.f(tc.a), tc.f(tc.b), 1e-14, 200)
+		if err != nil {
+			t.Errorf("%s: %v", tc.name, err)
+			continue
+		}
+		// Closed-form roots; tolerance: xtol plus a few ulp (the cubic's root is only
+		// determined to about cbrt(eps) in x, since f is below rounding there).
+		tol := 1e-13
+		if tc.name == "flat cubic" {
+			tol = 1e-5
+		}
+		if math.Abs(got-tc.want) > tol {
+			t.Errorf("%s: root %.17g, want %.17g", tc.name, got, tc.want)
+		}
+	}
+}
+
+func TestBrentErrors(t *testing.T) {
+	sq := func(x float64) (float64, error) { return x*x + 1, nil }
+	if _, err := Brent(sq, -1, 1, 2, 2, 0, 100); !errors.Is(err, ErrNoBracket) {
+		t.Errorf("no sign change: %v", err)
+	}
+	if _, err := Brent(sq, -1, 1, math.NaN(), -1, 0, 100); !errors.Is(err, ErrNoBracket) {
+		t.Errorf("NaN end: %v", err)
+	}
+	boom := errors.New("boom")
+	bad := func(x float64) (float64, error) { return 0, boom }
+	if _, err := Brent(bad, -1, 1, -1, 1, 0, 100); !errors.Is(err, boom) {
+		t.Errorf("error from f not passed on: %v", err)
+	}
+	nan := func(x float64) (float64, error) { return math.NaN(), nil }
+	if _, err := Brent(nan, -1, 1, -1, 1, 0, 100); !errors.Is(err, ErrNoConvergence) {
+		t.Errorf("NaN from f: %v", err)
+	}
+	// A step function gives Brent nothing to interpolate: it bisects, far more than 3 times.
+	step := func(x float64) (float64, error) { return math.Copysign(1, x-0.3), nil }
+	if _, err := Brent(step, -1e3, 1e3, -1, 1, 0, 3); !errors.Is(err, ErrNoConvergence) {
+		t.Errorf("iteration limit: %v", err)
+	}
+	slow := func(x float64) (float64, error) { return x - 0.3, nil }
+	if x, err := Brent(slow, 0.3, 1, 0, 0.7, 0, 10); err != nil || x != 0.3 {
+		t.Errorf("root at an end: %g, %v", x, err)
+	}
+}
+
+// FuzzBrent: for any bracket of a monotone function, Brent returns a point inside it where
+// the sign change is resolved to the tolerance.
+func FuzzBrent(f *testing.F) {
+	f.Add(0.0, 1.0, 0.3)
+	f.Add(-1e10, 1e10, 5.0)
+	f.Add(-1.0, 1.0, -0.999999)
+	f.Fuzz(func(t *testing.T, a, b, r float64) {
+		if !(a < b) || math.IsInf(a, 0) || math.IsInf(b, 0) || !(r > a && r < b) || b-a > 1e300 {
+			return
+		}
+		g := func(x float64) (float64, error) { return math.Tanh(x - r), nil }
+		fa, _ := g(a)
+		fb, _ := g(b)
+		x, err := Brent(g, a, b, fa, fb, 0, 2000)
+		if err != nil {
+			if errors.Is(err, ErrNoBracket) && (fa == 0 || fb == 0 || (fa > 0) == (fb > 0)) {
+				return // tanh rounded to the same sign at both ends
+			}
+			t.Fatalf("Brent(%g, %g) for root %g: %v", a, b, r, err)
+		}
+		if x < a || x > b {
+			t.Fatalf("root %g outside [%g, %g]", x, a, b)
+		}
+		if d := math.Abs(x - r); d > 1e-12*math.Max(1, math.Abs(r)) && math.Tanh(x-r) != 0 {
+			t.Fatalf("root %g, want %g (tanh %g)", x, r, math.Tanh(x-r))
+		}
+	})
+}
