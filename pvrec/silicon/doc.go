@@ -14,7 +14,7 @@
 //	m, err := silicon.DefaultModelSet().At(300)
 //	e, err := m.Equilibrium(1e19, 0)           // n0, p0, ionised dopants, ΔEg, ni,eff, EF
 //	nie, err := m.NiEff(n, p, e.NdIon, e.NaIon) // at injection
-//	fmt.Println(m) // Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation
+//	fmt.Println(m) // Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation, μ Klaassen1992
 //
 // Units are cm^-3, K, eV and V. Bad input (NaN, ±Inf, negative densities, T <= 0) returns an
 // error naming the argument; a temperature or density outside a model's validity range returns
@@ -83,8 +83,7 @@
 // self-consistent by fixed-point iteration with a bracketed Brent fallback (R. P. Brent,
 // "Algorithms for Minimization without Derivatives", Prentice-Hall, 1973).
 //
-// Band-gap narrowing (BandgapNarrowing) — list maintained with the BGN models (bgn*.go);
-// TO BE COMPLETED by their author as models are added:
+// Band-gap narrowing (BandgapNarrowing):
 //   - Schenk1998 (default, physical, injection-dependent): A. Schenk, "Finite-temperature
 //     full random-phase approximation model of band gap narrowing for silicon device
 //     simulation", J. Appl. Phys. 84, 3684 (1998).
@@ -97,11 +96,11 @@
 //     of steady-state minority-carrier transport parameters in heavily doped n-type silicon",
 //     IEEE Trans. Electron Devices 34, 1580 (1987).
 //   - NoNarrowing: ΔEg = 0.
-//   - (Yan–Cuevas: to be added here with its reference if and when the model is added.)
+//   - Not provided: the fits of D. Yan and A. Cuevas, J. Appl. Phys. 114, 044508 (2013) (P)
+//     and 116, 194505 (2014) (B), whose parameters could not be stated with confidence.
 //
-// Mobility and resistivity (Mobility; mobility*.go, resistivity.go) — list maintained with
-// those models; TO BE COMPLETED by their author:
-//   - Klaassen1992: D. B. M. Klaassen, "A unified mobility model for device simulation — I.
+// Mobility (Mobility), ModelSet.Mobility and Material.Mobilities:
+//   - Klaassen1992 (default): D. B. M. Klaassen, "A unified mobility model for device simulation — I.
 //     Model equations and concentration dependence", Solid-State Electron. 35, 953 (1992), and
 //     "— II. Temperature dependence of carrier mobility and lifetime", Solid-State Electron.
 //     35, 961 (1992).
@@ -109,4 +108,15 @@
 //     carrier concentration in arsenic-, phosphorus-, and boron-doped silicon", IEEE Trans.
 //     Electron Devices 30, 764 (1983).
 //   - ConstantMobility: fixed mobilities for hand calculations.
+//
+// Derived transport quantities: Diffusivity and DiffusivityFD (Einstein relation, with the
+// Fermi–Dirac factor F_{1/2}/F_{−1/2} where degenerate), Diffusivities (following the model
+// set's statistics), AmbipolarDiffusivity (W. van Roosbroeck, Phys. Rev. 91, 282 (1953)), and
+// the sum mobility μn + μp versus excess carrier density (SumMobility, SumMobilities and the
+// interpolating SumMobilityTable) for photoconductance analysis.
+//
+// Resistivity: Conductivity, Resistivity, ResistivityFromDoping and the bracketed inversion
+// DopingFromResistivity; checked against the conversion standard ASTM F723 and the NBS
+// measurements it rests on (W. R. Thurber, R. L. Mattis, Y. M. Liu and J. J. Filliben,
+// J. Electrochem. Soc. 127, 1807 and 2291 (1980)) within the stated, observed tolerances.
 package silicon

@@ -16,7 +16,7 @@ func ExampleModelSet_At() {
 	fmt.Printf("kT/q = %.3f mV, Eg = %.4f eV, ni = %.3g cm^-3\n", 1e3*m.Vt(), m.Eg(), m.Ni())
 	fmt.Printf("Nc = %.3g cm^-3, Nv = %.3g cm^-3\n", m.Nc(), m.Nv())
 	// Output:
-	// Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation
+	// Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation, μ Klaassen1992
 	// kT/q = 25.852 mV, Eg = 1.1243 eV, ni = 9.67e+09 cm^-3
 	// Nc = 2.86e+19 cm^-3, Nv = 3.1e+19 cm^-3
 }
@@ -38,7 +38,7 @@ func ExampleModelSet() {
 	_, err = ms.At(310)
 	fmt.Println(err)
 	// Output:
-	// Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Altermatt2003, BGN KlaassenSlotboomDeGraaff1992, Boltzmann, complete ionisation
+	// Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Altermatt2003, BGN KlaassenSlotboomDeGraaff1992, Boltzmann, complete ionisation, μ Klaassen1992
 	// silicon: Altermatt2003: temperature T = 310 K outside validity range [299.99, 300.01] K
 }
 

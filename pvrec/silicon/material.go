@@ -148,3 +148,10 @@ func seriesSMinus1(u float64) float64 {
 	)
 	return u * (-c2 + u*(c3+u*(-c4+u*(c5+u*(-c6+u*c7)))))
 }
+
+// Mobilities returns the electron and hole mobilities μn, μp in cm²/(V·s) of the model set's
+// Mobility model at the material's temperature, for carrier densities n, p and ionised dopant
+// densities nd, na in cm^-3 (finite, >= 0). Errors are those of the model.
+func (m *Material) Mobilities(n, p, nd, na float64) (mun, mup float64, err error) {
+	return m.ms.Mobility.Mobilities(Point{T: m.t, Nd: nd, Na: na, N: n, P: p})
+}

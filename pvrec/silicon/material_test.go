@@ -55,7 +55,7 @@ func mustAt(t testing.TB, ms ModelSet, tk float64) *Material {
 
 func TestModelSetAt(t *testing.T) {
 	m := mustAt(t, DefaultModelSet(), 300)
-	want := "Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation"
+	want := "Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation, μ Klaassen1992"
 	if m.String() != want {
 		t.Errorf("String() = %q\nwant       %q", m.String(), want)
 	}

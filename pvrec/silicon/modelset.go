@@ -23,11 +23,12 @@ type ModelSet struct {
 	BGN        BandgapNarrowing // band-gap narrowing ΔEg (doping and, for some models, carriers)
 	Statistics Statistics       // Boltzmann or FermiDirac
 	Ionization Ionization       // dopant ionisation; CompleteIonization{} for complete ionisation
+	Mobility   Mobility         // carrier mobilities μn, μp (majority, minority, carrier–carrier)
 }
 
 // DefaultModelSet returns the package's default models: band gap Passler2002, densities of
 // states Green1990DOS, intrinsic density Couderc2014, band-gap narrowing Schenk1998,
-// Fermi–Dirac statistics and complete ionisation. Its validity range is the intersection of
+// Fermi–Dirac statistics, complete ionisation and mobility Klaassen1992. Its validity range is the intersection of
 // the models' ranges, 200–500 K with the default parameters.
 func DefaultModelSet() ModelSet {
 	return ModelSet{
@@ -37,15 +38,16 @@ func DefaultModelSet() ModelSet {
 		BGN:        defaultBGN(),
 		Statistics: FermiDirac,
 		Ionization: CompleteIonization{},
+		Mobility:   NewKlaassen1992(),
 	}
 }
 
 // String returns the models' short names, e.g. "Eg Pässler2002, DOS Green1990,
-// ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation".
+// ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation, μ Klaassen1992".
 func (ms ModelSet) String() string {
-	return fmt.Sprintf("Eg %s, DOS %s, ni %s, BGN %s, %s, %s",
+	return fmt.Sprintf("Eg %s, DOS %s, ni %s, BGN %s, %s, %s, μ %s",
 		modelName(ms.Gap), modelName(ms.DOS), modelName(ms.Intrinsic), modelName(ms.BGN),
-		ms.Statistics, modelName(ms.Ionization))
+		ms.Statistics, modelName(ms.Ionization), modelName(ms.Mobility))
 }
 
 // modelName returns the model's String() if it has one, else its Go type.
@@ -74,6 +76,8 @@ func (ms ModelSet) validate() error {
 		return fmt.Errorf("silicon: ModelSet.Statistics = %v is not Boltzmann or FermiDirac", ms.Statistics)
 	case ms.Ionization == nil:
 		return fmt.Errorf("silicon: ModelSet.Ionization is nil (use CompleteIonization{})")
+	case ms.Mobility == nil:
+		return fmt.Errorf("silicon: ModelSet.Mobility is nil (use ConstantMobility for hand calculations)")
 	}
 	return nil
 }
@@ -116,6 +120,11 @@ func (ms ModelSet) At(t float64) (*Material, error) {
 	gap0 := math.Log(nc) + math.Log(nv) - 2*math.Log(ni)
 	if !(gap0 > 0) {
 		return nil, fmt.Errorf("silicon: models give ni = %g cm^-3 >= sqrt(Nc Nv) = %g cm^-3 at T = %g K", ni, math.Sqrt(nc)*math.Sqrt(nv), t)
+	}
+	// Evaluate the mobility model once at low doping so that a temperature outside its range
+	// fails here rather than deep inside a solver.
+	if _, _, err := ms.Mobility.Mobilities(Point{T: t}); err != nil {
+		return nil, err
 	}
 	_, complete := ms.Ionization.(CompleteIonization)
 	return &Material{

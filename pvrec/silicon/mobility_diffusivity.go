@@ -1,0 +1,124 @@
+package silicon
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/pvrec/pvrec/fermi"
+)
+
+// Diffusivity returns the diffusivity D = μ kT/q in cm²/s of non-degenerate carriers with
+// mobility mu in cm²/(V·s) at temperature t in K (the Einstein relation; for example
+// 1414 cm²/(V·s) gives 36.55 cm²/s at 300 K). It returns an error for mu not finite and
+// >= 0 or an invalid t. For degenerate carriers use DiffusivityFD or Diffusivities.
+func Diffusivity(mu, t float64) (float64, error) {
+	vt, err := ThermalVoltage(t)
+	if err != nil {
+		return 0, err
+	}
+	if err := checkMobilityValue("mu", mu); err != nil {
+		return 0, err
+	}
+	return mu * vt, nil
+}
+
+// DiffusivityFD returns the diffusivity in cm²/s of carriers with mobility mu in cm²/(V·s) at
+// temperature t in K and density n in cm^-3 in a parabolic band of effective density of
+// states nEff in cm^-3, by the Einstein relation generalised to Fermi–Dirac statistics,
+//
+//	D = μ (kT/q) F_{1/2}(η)/F_{−1/2}(η),   n = nEff F_{1/2}(η),
+//
+// which follows from D/μ = (n/q)/(dn/dEF) (see for example S. M. Sze and K. K. Ng, Physics of
+// Semiconductor Devices, 3rd ed., Wiley 2007). The factor exceeds 1 and tends to 1
+// for n << nEff (it is 1 + n/(2^{3/2} nEff) to first order); at n = nEff it is 1.344.
+// It returns an error for invalid mu, t, n or nEff (nEff must be finite and > 0).
+func DiffusivityFD(mu, t, n, nEff float64) (float64, error) {
+	d, err := Diffusivity(mu, t)
+	if err != nil {
+		return 0, err
+	}
+	if err := checkDensity("n", n); err != nil {
+		return 0, err
+	}
+	if !(nEff > 0) || math.IsInf(nEff, 0) {
+		return 0, fmt.Errorf("silicon: effective density of states nEff must be finite and > 0 cm^-3, got %g", nEff)
+	}
+	return d * degeneracyFactor(n/nEff), nil
+}
+
+// degeneracyFactor returns F_{1/2}(η)/F_{−1/2}(η) with F_{1/2}(η) = y, for y >= 0 finite.
+// Below y = 1e-12 the first-order term y/2^{3/2} is below 4e-13 and the factor rounds to
+// 1 + y/2^{3/2}, returned without inverting F_{1/2}.
+func degeneracyFactor(y float64) float64 {
+	if y < 1e-12 {
+		return 1 + y/(2*math.Sqrt2)
+	}
+	eta, err := fermi.InvHalf(y)
+	if err != nil { // unreachable for finite y > 0
+		return math.NaN()
+	}
+	return y / fermi.MinusHalf(eta)
+}
+
+// Diffusivities returns the electron and hole diffusivities Dn and Dp in cm²/s in material mat
+// at electron and hole densities n and p and ionised donor and acceptor densities nd and na
+// (all cm^-3), with mobilities from mob at Point{mat.T(), nd, na, n, p}. Under the material's
+// Fermi–Dirac statistics the Einstein relation carries the degeneracy factor of DiffusivityFD
+// with Nc and Nv of mat (band-gap narrowing shifts the band edges but does not change
+// D/μ, which depends only on n/Nc); under Boltzmann statistics D = μ kT/q.
+// It returns an error for invalid densities or an error of the mobility model.
+func Diffusivities(mat *Material, mob Mobility, n, p, nd, na float64) (dn, dp float64, err error) {
+	if mat == nil || mob == nil {
+		return 0, 0, fmt.Errorf("silicon: Diffusivities needs a non-nil Material and Mobility")
+	}
+	mun, mup, err := mob.Mobilities(Point{T: mat.T(), Nd: nd, Na: na, N: n, P: p})
+	if err != nil {
+		return 0, 0, err
+	}
+	dn, dp = mun*mat.Vt(), mup*mat.Vt()
+	if mat.Models().Statistics == FermiDirac {
+		dn *= degeneracyFactor(n / mat.Nc())
+		dp *= degeneracyFactor(p / mat.Nv())
+	}
+	return dn, dp, nil
+}
+
+// AmbipolarDiffusivity returns the ambipolar diffusivity in cm²/s of excess carriers in a
+// quasi-neutral region with electron and hole diffusivities dn and dp in cm²/s and electron
+// and hole densities n and p in cm^-3,
+//
+//	Da = (n + p)/(n/Dp + p/Dn),
+//
+// (W. van Roosbroeck, Phys. Rev. 91, 282 (1953); for example S. M. Sze and K. K. Ng, Physics
+// of Semiconductor Devices, 3rd ed., Wiley 2007). It tends to the minority-carrier diffusivity
+// in low injection and to 2 Dn Dp/(Dn + Dp) in high injection. It returns an error for
+// diffusivities not finite and > 0, for invalid densities, or for n = p = 0.
+func AmbipolarDiffusivity(dn, dp, n, p float64) (float64, error) {
+	for _, a := range [...]struct {
+		name string
+		v    float64
+	}{{"Dn", dn}, {"Dp", dp}} {
+		if !(a.v > 0) || math.IsInf(a.v, 0) {
+			return 0, fmt.Errorf("silicon: diffusivity %s must be finite and > 0 cm²/s, got %g", a.name, a.v)
+		}
+	}
+	if err := checkDensity("n", n); err != nil {
+		return 0, err
+	}
+	if err := checkDensity("p", p); err != nil {
+		return 0, err
+	}
+	if n == 0 && p == 0 {
+		return 0, fmt.Errorf("silicon: ambipolar diffusivity undefined for n = p = 0")
+	}
+	// (n + p) Dn Dp / (n Dn + p Dp), written so that n or p = 0 gives Dp or Dn exactly.
+	return (n + p) * dn * dp / (n*dn + p*dp), nil
+}
+
+// checkMobilityValue returns an error unless mu is a finite mobility >= 0 in cm²/(V·s).
+func checkMobilityValue(name string, mu float64) error {
+	if math.IsNaN(mu) || math.IsInf(mu, 0) || mu < 0 {
+		return fmt.Errorf("silicon: mobility %s must be finite and >= 0 cm²/(V·s), got %g", name, mu)
+	}
+	return nil
+}
