@@ -1,0 +1,321 @@
+package surface
+
+import (
+	"fmt"
+	"math"
+	"sort"
+	"strings"
+)
+
+// Energies of interface states are given as e = E − Ei in eV, measured from the effective
+// intrinsic level Ei of the bulk: the level at which the SRH emission densities equal ni,eff,
+// n1 = ni,eff exp(e/kT) and p1 = ni,eff exp(−e/kT). In silicon Ei lies within about 1 meV
+// of midgap. The conduction- and valence-band edges are at e = kT ln(Nc/ni,eff) and
+// e = −kT ln(Nv/ni,eff) (about ±0.56 eV at 300 K); ExtendedSRH integrates between them.
+
+// DitDistribution is the energy distribution of interface-state density of a
+// dielectric–silicon interface.
+type DitDistribution interface {
+	// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV (finite, >= 0).
+	Density(e float64) float64
+	// Breakpoints returns the energies (E − Ei, eV) at which Density has a kink, a step or a
+	// feature narrower than kT, so that the integration over energy puts panel ends there.
+	// It may return nil for a distribution smooth on the scale of kT.
+	Breakpoints() []float64
+	// String returns a short description, e.g. "ConstantDit(1e+11 cm^-2 eV^-1)".
+	String() string
+}
+
+// CrossSection is the energy dependence of a capture cross section of interface states.
+type CrossSection interface {
+	// Sigma returns the capture cross section in cm^2 (finite, > 0) at e = E − Ei in eV.
+	Sigma(e float64) float64
+	// Breakpoints is as for DitDistribution.
+	Breakpoints() []float64
+	// String returns a short description.
+	String() string
+}
+
+// ConstantDit is an energy-independent interface-state density D in cm^-2 eV^-1 across the
+// whole gap.
+type ConstantDit struct {
+	D float64 // interface-state density, cm^-2 eV^-1
+}
+
+// Density returns m.D.
+func (m ConstantDit) Density(e float64) float64 { return m.D }
+
+// Breakpoints returns nil.
+func (ConstantDit) Breakpoints() []float64 { return nil }
+
+// String returns e.g. "ConstantDit(1e+11 cm^-2 eV^-1)".
+func (m ConstantDit) String() string { return fmt.Sprintf("ConstantDit(%g cm^-2 eV^-1)", m.D) }
+
+// UShapedDit is the U-shaped interface-state density typical of thermally oxidised and
+// dielectric-passivated silicon, a flat midgap level rising exponentially towards both
+// band edges:
+//
+//	Dit(e) = Mid + TailC exp((e − Ec)/WidthC) + TailV exp((Ev − e)/WidthV),
+//
+// so that Dit is about Mid + TailC at the conduction-band edge e = Ec and Mid + TailV at the
+// valence-band edge e = Ev (the other tail adds TailV exp(−(Ec − Ev)/WidthV), negligible for
+// widths of a tenth of the gap). The shape is the common description (no source); its parameters
+// are the user's. Energies are E − Ei in eV.
+type UShapedDit struct {
+	Mid    float64 // midgap density, cm^-2 eV^-1
+	TailC  float64 // excess density at the conduction-band edge, cm^-2 eV^-1
+	TailV  float64 // excess density at the valence-band edge, cm^-2 eV^-1
+	Ec     float64 // conduction-band edge position E − Ei, eV (about +0.56 in silicon at 300 K)
+	Ev     float64 // valence-band edge position E − Ei, eV (about −0.56 in silicon at 300 K)
+	WidthC float64 // characteristic energy of the conduction-band tail, eV (> 0)
+	WidthV float64 // characteristic energy of the valence-band tail, eV (> 0)
+}
+
+// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV (NaN for a non-positive width).
+func (m UShapedDit) Density(e float64) float64 {
+	if !(m.WidthC > 0) || !(m.WidthV > 0) {
+		return math.NaN()
+	}
+	return m.Mid + m.TailC*math.Exp((e-m.Ec)/m.WidthC) + m.TailV*math.Exp((m.Ev-e)/m.WidthV)
+}
+
+// Breakpoints returns nil: the exponential tails are smooth for the integration rule.
+func (UShapedDit) Breakpoints() []float64 { return nil }
+
+// String returns e.g. "UShapedDit(mid 1e+10, tails 1e+13/1e+13 cm^-2 eV^-1)".
+func (m UShapedDit) String() string {
+	return fmt.Sprintf("UShapedDit(mid %g, tails %g/%g cm^-2 eV^-1)", m.Mid, m.TailC, m.TailV)
+}
+
+// GaussianDit is a Gaussian band of interface states, such as the Pb-centre bands of
+// oxidised silicon:
+//
+//	Dit(e) = Peak exp(−(e − E0)² / (2 Width²)),
+//
+// with the total density Peak·Width·sqrt(2π) cm^-2. Energies are E − Ei in eV.
+type GaussianDit struct {
+	Peak  float64 // peak density, cm^-2 eV^-1
+	E0    float64 // peak position E − Ei, eV
+	Width float64 // standard deviation, eV (> 0)
+}
+
+// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV (NaN for a non-positive width).
+func (m GaussianDit) Density(e float64) float64 {
+	if !(m.Width > 0) {
+		return math.NaN()
+	}
+	z := (e - m.E0) / m.Width
+	return m.Peak * math.Exp(-0.5*z*z)
+}
+
+// Breakpoints returns E0 + k·Width for k = −8..8, so that panels are no wider than Width
+// near the peak; beyond 8 widths Dit has fallen below 1.3e-14 of its peak.
+func (m GaussianDit) Breakpoints() []float64 {
+	b := make([]float64, 0, 17)
+	for k := -8; k <= 8; k++ {
+		b = append(b, m.E0+float64(k)*m.Width)
+	}
+	return b
+}
+
+// String returns e.g. "GaussianDit(1e+12 cm^-2 eV^-1 at 0.25 eV, width 0.1 eV)".
+func (m GaussianDit) String() string {
+	return fmt.Sprintf("GaussianDit(%g cm^-2 eV^-1 at %g eV, width %g eV)", m.Peak, m.E0, m.Width)
+}
+
+// TabulatedDit is an interface-state density given at energies E (E − Ei, eV, strictly
+// increasing, at least two) with densities D (cm^-2 eV^-1, finite, >= 0), such as a measured
+// Dit(E). Between nodes it is interpolated linearly; outside [E[0], E[len−1]] it is zero.
+// Make one with NewTabulatedDit, which checks and copies the table; a literal is checked when
+// ExtendedSRH uses it.
+type TabulatedDit struct {
+	E []float64 // energies E − Ei, eV, strictly increasing
+	D []float64 // interface-state densities at E, cm^-2 eV^-1
+}
+
+// NewTabulatedDit returns a TabulatedDit with copies of e and d, or an error naming the first
+// bad entry.
+func NewTabulatedDit(e, d []float64) (TabulatedDit, error) {
+	m := TabulatedDit{E: append([]float64(nil), e...), D: append([]float64(nil), d...)}
+	return m, m.Validate()
+}
+
+// Validate returns an error unless the table is well formed (see TabulatedDit).
+func (m TabulatedDit) Validate() error {
+	return validateTable("TabulatedDit", "D", "cm^-2 eV^-1", m.E, m.D, false)
+}
+
+// Density returns the interpolated Dit in cm^-2 eV^-1 at e = E − Ei in eV, 0 outside the
+// table, and NaN for a malformed table.
+func (m TabulatedDit) Density(e float64) float64 {
+	if len(m.E) < 2 || len(m.E) != len(m.D) {
+		return math.NaN()
+	}
+	if e < m.E[0] || e > m.E[len(m.E)-1] {
+		return 0
+	}
+	i, t := locate(m.E, e)
+	return m.D[i] + t*(m.D[i+1]-m.D[i])
+}
+
+// Breakpoints returns the table's energies.
+func (m TabulatedDit) Breakpoints() []float64 { return m.E }
+
+// String returns e.g. "TabulatedDit(25 points, -0.5..0.5 eV)".
+func (m TabulatedDit) String() string {
+	if len(m.E) == 0 {
+		return "TabulatedDit(empty)"
+	}
+	return fmt.Sprintf("TabulatedDit(%d points, %g..%g eV)", len(m.E), m.E[0], m.E[len(m.E)-1])
+}
+
+// DitSum is the sum of several interface-state distributions, e.g. a U-shaped continuum and
+// a Gaussian band.
+type DitSum []DitDistribution
+
+// Density returns the sum of the members' densities in cm^-2 eV^-1 (NaN if a member is nil).
+func (s DitSum) Density(e float64) float64 {
+	var sum float64
+	for _, m := range s {
+		if m == nil {
+			return math.NaN()
+		}
+		sum += m.Density(e)
+	}
+	return sum
+}
+
+// Breakpoints returns the union of the members' breakpoints.
+func (s DitSum) Breakpoints() []float64 {
+	var b []float64
+	for _, m := range s {
+		if m != nil {
+			b = append(b, m.Breakpoints()...)
+		}
+	}
+	return b
+}
+
+// String returns the members' descriptions joined by " + ".
+func (s DitSum) String() string {
+	parts := make([]string, len(s))
+	for i, m := range s {
+		if m == nil {
+			parts[i] = "<nil>"
+		} else {
+			parts[i] = m.String()
+		}
+	}
+	return strings.Join(parts, " + ")
+}
+
+// Validate returns an error if a member is nil or fails its own Validate method.
+func (s DitSum) Validate() error {
+	for i, m := range s {
+		if m == nil {
+			return fmt.Errorf("surface: DitSum[%d] is nil", i)
+		}
+		if v, ok := m.(interface{ Validate() error }); ok {
+			if err := v.Validate(); err != nil {
+				return err
+			}
+		}
+	}
+	return nil
+}
+
+// ConstantSigma is an energy-independent capture cross section in cm^2.
+type ConstantSigma float64
+
+// Sigma returns the cross section in cm^2.
+func (s ConstantSigma) Sigma(e float64) float64 { return float64(s) }
+
+// Breakpoints returns nil.
+func (ConstantSigma) Breakpoints() []float64 { return nil }
+
+// String returns e.g. "1e-16 cm^2".
+func (s ConstantSigma) String() string { return fmt.Sprintf("%g cm^2", float64(s)) }
+
+// TabulatedSigma is a capture cross section given at energies E (E − Ei, eV, strictly
+// increasing, at least two) with values S (cm^2, finite, > 0). Between nodes it is
+// interpolated linearly in log σ (cross sections span decades); outside the table it keeps
+// the end values. Make one with NewTabulatedSigma; a literal is checked when ExtendedSRH uses
+// it.
+type TabulatedSigma struct {
+	E []float64 // energies E − Ei, eV, strictly increasing
+	S []float64 // capture cross sections at E, cm^2
+}
+
+// NewTabulatedSigma returns a TabulatedSigma with copies of e and sigma, or an error naming
+// the first bad entry.
+func NewTabulatedSigma(e, sigma []float64) (TabulatedSigma, error) {
+	m := TabulatedSigma{E: append([]float64(nil), e...), S: append([]float64(nil), sigma...)}
+	return m, m.Validate()
+}
+
+// Validate returns an error unless the table is well formed (see TabulatedSigma).
+func (m TabulatedSigma) Validate() error {
+	return validateTable("TabulatedSigma", "S", "cm^2", m.E, m.S, true)
+}
+
+// Sigma returns the interpolated cross section in cm^2 at e = E − Ei in eV (NaN for a
+// malformed table).
+func (m TabulatedSigma) Sigma(e float64) float64 {
+	n := len(m.E)
+	if n < 2 || n != len(m.S) {
+		return math.NaN()
+	}
+	switch {
+	case e <= m.E[0]:
+		return m.S[0]
+	case e >= m.E[n-1]:
+		return m.S[n-1]
+	}
+	i, t := locate(m.E, e)
+	return m.S[i] * math.Pow(m.S[i+1]/m.S[i], t)
+}
+
+// Breakpoints returns the table's energies.
+func (m TabulatedSigma) Breakpoints() []float64 { return m.E }
+
+// String returns e.g. "TabulatedSigma(5 points)".
+func (m TabulatedSigma) String() string { return fmt.Sprintf("TabulatedSigma(%d points)", len(m.E)) }
+
+// locate returns i and t in [0, 1] with x = e[i] + t (e[i+1] − e[i]), for e[0] <= x <= e[n−1].
+func locate(e []float64, x float64) (int, float64) {
+	i := sort.SearchFloat64s(e, x) - 1 // e[i] < x <= e[i+1]
+	if i < 0 {
+		i = 0
+	}
+	if i > len(e)-2 {
+		i = len(e) - 2
+	}
+	return i, (x - e[i]) / (e[i+1] - e[i])
+}
+
+// validateTable checks a table of values v at strictly increasing finite energies e.
+func validateTable(model, vname, unit string, e, v []float64, positive bool) error {
+	if len(e) < 2 {
+		return fmt.Errorf("surface: %s: need at least 2 energies, got %d", model, len(e))
+	}
+	if len(e) != len(v) {
+		return fmt.Errorf("surface: %s: %d energies but %d values of %s", model, len(e), len(v), vname)
+	}
+	for i := range e {
+		if math.IsNaN(e[i]) || math.IsInf(e[i], 0) {
+			return fmt.Errorf("surface: %s: energy E[%d] = %g eV is not finite", model, i, e[i])
+		}
+		if i > 0 && !(e[i] > e[i-1]) {
+			return fmt.Errorf("surface: %s: energies must increase strictly (E[%d] = %g after %g eV)", model, i, e[i], e[i-1])
+		}
+		bad := math.IsNaN(v[i]) || math.IsInf(v[i], 0) || v[i] < 0 || (positive && v[i] == 0)
+		if bad {
+			want := ">= 0"
+			if positive {
+				want = "> 0"
+			}
+			return fmt.Errorf("surface: %s: %s[%d] = %g %s must be finite and %s", model, vname, i, v[i], unit, want)
+		}
+	}
+	return nil
+}

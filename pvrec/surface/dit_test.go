@@ -1,0 +1,134 @@
+package surface
+
+import (
+	"math"
+	"strings"
+	"testing"
+)
+
+// totalDit integrates a distribution over the gap of b with the production quadrature.
+func totalDit(t *testing.T, d DitDistribution, b Bulk) float64 {
+	t.Helper()
+	m := NewExtendedSRH(d, ConstantSigma(1e-16), ConstantSigma(1e-16), 0)
+	nodes, err := m.grid(b, maxPanelKT, glOrder)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var sum float64
+	for _, n := range nodes {
+		sum += n.w
+	}
+	return sum
+}
+
+// TestDitIntegrals: the integral of each distribution over the gap against its closed form
+// (elementary integrals of constants, exponentials, a Gaussian, and the trapezoid rule, exact
+// for a piecewise-linear table). Tolerance 1e-13 relative.
+func TestDitIntegrals(t *testing.T) {
+	b := mustBulk(t, refMaterial(t), 0, 1e16, 1e15)
+	eLo, eHi := -b.Vt*math.Log(b.Nv/b.NiEff), b.Vt*math.Log(b.Nc/b.NiEff)
+	u := UShapedDit{Mid: 1e10, TailC: 1e13, TailV: 3e12, Ec: 0.55, Ev: -0.57, WidthC: 0.03, WidthV: 0.05}
+	g := GaussianDit{Peak: 2e12, E0: -0.1, Width: 0.01}
+	tab, err := NewTabulatedDit([]float64{-0.7, -0.2, 0, 0.1, 0.3}, []float64{1e11, 5e11, 2e10, 0, 4e11})
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Trapezoid of the table, with the part below eLo (the table starts outside the gap) cut:
+	// D(eLo) by linear interpolation between −0.7 and −0.2.
+	dLo := 1e11 + (eLo+0.7)/0.5*(5e11-1e11)
+	tabInt := 0.5*(dLo+5e11)*(-0.2-eLo) + 0.5*(5e11+2e10)*0.2 + 0.5*(2e10+0)*0.1 + 0.5*(0+4e11)*0.2
+	for _, c := range []struct {
+		name string
+		d    DitDistribution
+		want float64
+	}{
+		{"constant", ConstantDit{3e10}, 3e10 * (eHi - eLo)},
+		{"U-shaped", u, u.Mid*(eHi-eLo) +
+			u.TailC*u.WidthC*(math.Exp((eHi-u.Ec)/u.WidthC)-math.Exp((eLo-u.Ec)/u.WidthC)) +
+			u.TailV*u.WidthV*(math.Exp((u.Ev-eLo)/u.WidthV)-math.Exp((u.Ev-eHi)/u.WidthV))},
+		{"Gaussian", g, g.Peak * g.Width * math.Sqrt(2*math.Pi)},
+		{"tabulated", tab, tabInt},
+		{"sum", DitSum{ConstantDit{3e10}, g}, 3e10*(eHi-eLo) + g.Peak*g.Width*math.Sqrt(2*math.Pi)},
+	} {
+		if got := totalDit(t, c.d, b); relErr(got, c.want) > 1e-13 {
+			t.Errorf("%s: ∫Dit = %.15g, want %.15g (%.2g)", c.name, got, c.want, relErr(got, c.want))
+		}
+	}
+}
+
+// TestTabulated: interpolation rules (definitions in the doc comments).
+func TestTabulated(t *testing.T) {
+	d, _ := NewTabulatedDit([]float64{0, 0.1, 0.3}, []float64{1, 3, 0})
+	for _, c := range [][2]float64{{-0.01, 0}, {0, 1}, {0.05, 2}, {0.1, 3}, {0.2, 1.5}, {0.3, 0}, {0.31, 0}} {
+		if got := d.Density(c[0]); math.Abs(got-c[1]) > 1e-15 {
+			t.Errorf("Dit(%g) = %g, want %g", c[0], got, c[1])
+		}
+	}
+	s, _ := NewTabulatedSigma([]float64{-0.2, 0.2}, []float64{1e-14, 1e-16})
+	for _, c := range [][2]float64{{-1, 1e-14}, {-0.2, 1e-14}, {0, 1e-15}, {0.1, 1e-15 * math.Sqrt(0.1)}, {0.2, 1e-16}, {1, 1e-16}} {
+		if got := s.Sigma(c[0]); relErr(got, c[1]) > 1e-14 {
+			t.Errorf("σ(%g) = %g, want %g", c[0], got, c[1])
+		}
+	}
+	// The constructors copy their arguments.
+	e := []float64{0, 1}
+	v := []float64{1, 1}
+	d2, _ := NewTabulatedDit(e, v)
+	v[0] = 5
+	if d2.D[0] != 1 {
+		t.Error("NewTabulatedDit does not copy")
+	}
+}
+
+func TestTableValidation(t *testing.T) {
+	nan := math.NaN()
+	for name, c := range map[string][2][]float64{
+		"one point":      {{0}, {1}},
+		"lengths":        {{0, 1}, {1}},
+		"not increasing": {{0, 0}, {1, 1}},
+		"decreasing":     {{1, 0}, {1, 1}},
+		"NaN energy":     {{0, nan}, {1, 1}},
+		"negative":       {{0, 1}, {1, -1}},
+		"NaN value":      {{0, 1}, {nan, 1}},
+		"Inf value":      {{0, 1}, {1, math.Inf(1)}},
+	} {
+		if _, err := NewTabulatedDit(c[0], c[1]); err == nil || !strings.HasPrefix(err.Error(), "surface: ") {
+			t.Errorf("Dit %s: %v", name, err)
+		}
+		if _, err := NewTabulatedSigma(c[0], c[1]); err == nil {
+			t.Errorf("Sigma %s: no error", name)
+		}
+	}
+	if _, err := NewTabulatedSigma([]float64{0, 1}, []float64{1e-16, 0}); err == nil {
+		t.Error("zero cross section accepted")
+	}
+	if _, err := NewTabulatedDit([]float64{0, 1}, []float64{0, 0}); err != nil {
+		t.Errorf("zero Dit rejected: %v", err)
+	}
+	if !math.IsNaN((TabulatedDit{}).Density(0)) || !math.IsNaN((TabulatedSigma{}).Sigma(0)) {
+		t.Error("empty tables must give NaN")
+	}
+	if !math.IsNaN((UShapedDit{}).Density(0)) || !math.IsNaN((DitSum{nil}).Density(0)) {
+		t.Error("zero widths or nil members must give NaN")
+	}
+}
+
+func TestDitStrings(t *testing.T) {
+	for _, c := range []struct {
+		s    interface{ String() string }
+		want string
+	}{
+		{ConstantDit{1e11}, "ConstantDit(1e+11 cm^-2 eV^-1)"},
+		{ConstantSigma(1e-16), "1e-16 cm^2"},
+		{GaussianDit{Peak: 1e12, E0: 0.25, Width: 0.1}, "GaussianDit(1e+12 cm^-2 eV^-1 at 0.25 eV, width 0.1 eV)"},
+		{UShapedDit{Mid: 1e10, TailC: 1e13, TailV: 1e13}, "UShapedDit(mid 1e+10, tails 1e+13/1e+13 cm^-2 eV^-1)"},
+		{TabulatedDit{E: []float64{-0.5, 0.5}, D: []float64{1, 1}}, "TabulatedDit(2 points, -0.5..0.5 eV)"},
+		{TabulatedDit{}, "TabulatedDit(empty)"},
+		{TabulatedSigma{E: []float64{0, 1}}, "TabulatedSigma(2 points)"},
+		{DitSum{ConstantDit{1}, nil}, "ConstantDit(1 cm^-2 eV^-1) + <nil>"},
+	} {
+		if got := c.s.String(); got != c.want {
+			t.Errorf("String() = %q, want %q", got, c.want)
+		}
+	}
+}

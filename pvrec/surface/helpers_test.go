@@ -1,0 +1,93 @@
+package surface
+
+import (
+	"bufio"
+	"math"
+	"os"
+	"strconv"
+	"strings"
+	"testing"
+
+	"github.com/pvrec/pvrec/silicon"
+)
+
+// refMaterial is the material of the mpmath reference tables: 300 K, Boltzmann statistics,
+// ni = 1e10 cm^-3 (FixedNi), no band-gap narrowing, Green 1990 DOS, complete ionisation.
+func refMaterial(tb testing.TB) *silicon.Material {
+	tb.Helper()
+	ms := silicon.DefaultModelSet()
+	ms.Statistics = silicon.Boltzmann
+	ms.Intrinsic = silicon.NewFixedNi()
+	ms.BGN = silicon.NoNarrowing{}
+	m, err := ms.At(300)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return m
+}
+
+// defaultMaterial is silicon.DefaultModelSet at 300 K (Fermi–Dirac, Schenk BGN).
+func defaultMaterial(tb testing.TB) *silicon.Material {
+	tb.Helper()
+	m, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return m
+}
+
+func mustBulk(tb testing.TB, m *silicon.Material, nd, na, dn float64) Bulk {
+	tb.Helper()
+	b, err := NewBulk(m, nd, na, dn)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return b
+}
+
+func relErr(got, want float64) float64 {
+	if got == want {
+		return 0
+	}
+	return math.Abs(got-want) / math.Max(math.Abs(want), math.SmallestNonzeroFloat64)
+}
+
+// readCSV reads a committed reference table: a header line, then comma-separated rows.
+func readCSV(tb testing.TB, path string) (header []string, rows [][]string) {
+	tb.Helper()
+	f, err := os.Open(path)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	defer f.Close()
+	sc := bufio.NewScanner(f)
+	for sc.Scan() {
+		line := strings.TrimSpace(sc.Text())
+		if line == "" {
+			continue
+		}
+		fields := strings.Split(line, ",")
+		if header == nil {
+			header = fields
+			continue
+		}
+		if len(fields) != len(header) {
+			tb.Fatalf("%s: row %q has %d fields, header %d", path, line, len(fields), len(header))
+		}
+		rows = append(rows, fields)
+	}
+	if err := sc.Err(); err != nil {
+		tb.Fatal(err)
+	}
+	return header, rows
+}
+
+// atof parses a number of a reference table.
+func atof(tb testing.TB, s string) float64 {
+	tb.Helper()
+	v, err := strconv.ParseFloat(s, 64)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return v
+}
