@@ -34,7 +34,7 @@ func GenerationRate(jph, w float64) (float64, error) {
 //
 // where tau returns the effective lifetime in s at Δn (bulk, surfaces, or both, e.g.
 // func(dn float64) (float64, error) { return bulk.Lifetime(m, dn) }). The balance is solved
-// in ln Δn by Brent's method over [MinExcess, MaxExcess] cm^-3, assuming the recombination
+// in ln Δn by Brent's method within [MinExcess, MaxExcess] cm^-3, assuming the recombination
 // rate Δn/τ(Δn) increases with Δn (true of every mechanism in recomb and surface; if it does
 // not, the root returned is one of several). It returns 0 for g = 0, and an error naming g
 // if the balance lies outside the searched range or tau fails or returns a non-positive or
@@ -61,20 +61,36 @@ func SteadyStateExcess(g float64, tau func(dn float64) (float64, error)) (float6
 		}
 		return x - math.Log(t) - math.Log(g), nil
 	}
-	lo, hi := math.Log(MinExcess), math.Log(MaxExcess)
+	// Bracket the balance by decades outward from Δn = 1e15 cm^-3 (a typical reporting
+	// level), so that tau is evaluated only near the answer and never far outside a lifetime
+	// model's own validity range unless the answer lies there.
+	xmin, xmax := math.Log(MinExcess), math.Log(MaxExcess)
+	lo := math.Log(1e15)
 	flo, err := f(lo)
 	if err != nil {
 		return 0, err
 	}
-	fhi, err := f(hi)
-	if err != nil {
-		return 0, err
-	}
-	if flo > 0 {
-		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances below Δn = %g cm^-3", g, MinExcess)
-	}
-	if fhi < 0 {
-		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances above Δn = %g cm^-3", g, MaxExcess)
+	hi, fhi := lo, flo
+	for flo > 0 || fhi < 0 {
+		if flo > 0 { // the balance lies lower
+			if lo == xmin {
+				return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances below Δn = %g cm^-3", g, MinExcess)
+			}
+			hi, fhi = lo, flo
+			lo = math.Max(lo-math.Ln10, xmin)
+			if flo, err = f(lo); err != nil {
+				return 0, err
+			}
+		} else { // the balance lies higher
+			if hi == xmax {
+				return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances above Δn = %g cm^-3", g, MaxExcess)
+			}
+			lo, flo = hi, fhi
+			hi = math.Min(hi+math.Ln10, xmax)
+			if fhi, err = f(hi); err != nil {
+				return 0, err
+			}
+		}
 	}
 	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-13, 300)
 	if err != nil {

@@ -124,3 +124,20 @@ func FuzzSteadyStateExcess(f *testing.F) {
 		}
 	})
 }
+
+// TestSteadyStateExcessStaysNearAnswer: a lifetime model valid only for 1e10 <= Δn <= 1e18
+// (like the surface model) is never asked outside that range when the answer lies well inside.
+func TestSteadyStateExcessStaysNearAnswer(t *testing.T) {
+	tau := func(x float64) (float64, error) {
+		if x < 1e10 || x > 1e18 {
+			return 0, errors.New("outside the model's range")
+		}
+		return 1e-3, nil
+	}
+	for _, want := range []float64{1e11, 1e13, 1e15, 1e16, 1e17} {
+		dn, err := SteadyStateExcess(want/1e-3, tau)
+		if err != nil || math.Abs(dn/want-1) > 1e-12 {
+			t.Errorf("Δn = %g, %v; want %g", dn, err, want)
+		}
+	}
+}
