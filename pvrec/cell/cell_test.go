@@ -1,14 +1,12 @@
 package cell
 
 import (
-	"encoding/csv"
 	"math"
-	"os"
-	"strconv"
 	"strings"
 	"sync"
 	"testing"
 
+	"github.com/pvrec/pvrec/internal/reftable"
 	"github.com/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/silicon"
 )
@@ -62,25 +60,12 @@ func relErr(got, want float64) float64 {
 
 func readReference(t *testing.T) [][]string {
 	t.Helper()
-	f, err := os.Open("../../testdata/reference/cell.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	return rows[1:]
+	return reftable.Load(t, "cell").Rows
 }
 
 func num(t *testing.T, s string) float64 {
 	t.Helper()
-	v, err := strconv.ParseFloat(s, 64)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return v
+	return reftable.Float(t, s)
 }
 
 // TestIdealDiodeWorkedCases checks IdealDiodeVoc and its inverse J0FromVoc on the worked cases

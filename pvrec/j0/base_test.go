@@ -1,13 +1,11 @@
 package j0
 
 import (
-	"encoding/csv"
 	"math"
-	"os"
-	"strconv"
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/internal/reftable"
 	"github.com/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/silicon"
 )
@@ -18,21 +16,10 @@ func relErr(got, want float64) float64 { return math.Abs(got/want - 1) }
 // M. A. Green, Solar Cells, Prentice-Hall 1982, evaluated with mpmath). Tolerance 1e-14: a
 // sqrt, a tanh and a few products.
 func TestBaseReference(t *testing.T) {
-	f, err := os.Open("../../testdata/reference/j0_base.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
-	for _, r := range rows[1:] {
+	for _, r := range reftable.Load(t, "j0_base").Rows {
 		var v [7]float64
 		for i := range v {
-			if v[i], err = strconv.ParseFloat(r[i], 64); err != nil {
-				t.Fatal(err)
-			}
+			v[i] = reftable.Float(t, r[i])
 		}
 		b := Base{NiEff: v[0], Doping: v[1], Width: v[2], Tau: v[3], D: v[4], S: v[5]}
 		got, err := b.J0()

@@ -1,13 +1,12 @@
 package recomb
 
 import (
-	"encoding/csv"
 	"errors"
 	"math"
-	"os"
-	"strconv"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/internal/reftable"
 )
 
 // TestDetailedBalance checks that every mechanism has zero net rate in thermal equilibrium,
@@ -142,25 +141,10 @@ func TestGridFinitePositive(t *testing.T) {
 // fixed test material. Tolerance 1e-13: the Go code's exp/log powers and tanh are accurate to
 // a few 1e-15.
 func TestReferenceRates(t *testing.T) {
-	f, err := os.Open("../../testdata/reference/recomb.csv")
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer f.Close()
-	rows, err := csv.NewReader(f).ReadAll()
-	if err != nil {
-		t.Fatal(err)
-	}
 	mat := newFixed()
-	num := func(s string) float64 {
-		v, err := strconv.ParseFloat(s, 64)
-		if err != nil {
-			t.Fatal(err)
-		}
-		return v
-	}
+	num := func(s string) float64 { return reftable.Float(t, s) }
 	n := 0
-	for _, r := range rows[1:] {
+	for _, r := range reftable.Load(t, "recomb").Rows {
 		nd, na, dn, want := num(r[1]), num(r[2]), num(r[3]), num(r[5])
 		var mech BulkRecombination
 		switch r[0] {

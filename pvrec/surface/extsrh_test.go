@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"testing"
+
+	"github.com/pvrec/pvrec/internal/reftable"
 )
 
 // refCase is a row of testdata/reference/surface_extsrh.py (same inputs, by name).
@@ -45,7 +47,8 @@ func refCases(t *testing.T) map[string]refCase {
 func TestExtendedSRHReference(t *testing.T) {
 	mat := refMaterial(t)
 	cases := refCases(t)
-	header, rows := readCSV(t, "../../testdata/reference/surface_extsrh.csv")
+	tab := reftable.Load(t, "surface_extsrh")
+	header, rows := tab.Header, tab.Rows
 	if len(rows) != len(cases) {
 		t.Fatalf("%d reference rows, %d cases", len(rows), len(cases))
 	}
@@ -61,7 +64,7 @@ func TestExtendedSRHReference(t *testing.T) {
 		}
 		got := []float64{r.Psi / r.Bulk.Vt, r.Ns, r.Ps, r.Qit, r.Qs, r.Us, r.Seff, r.J0s}
 		for i, g := range got {
-			want := atof(t, row[i+1])
+			want := reftable.Float(t, row[i+1])
 			tol := 1e-12 * math.Max(1, math.Abs(want)) // y: absolute near 0
 			if i > 0 {
 				tol = 1e-12 * math.Abs(want)

@@ -1,11 +1,7 @@
 package surface
 
 import (
-	"bufio"
 	"math"
-	"os"
-	"strconv"
-	"strings"
 	"testing"
 
 	"github.com/pvrec/pvrec/silicon"
@@ -50,44 +46,4 @@ func relErr(got, want float64) float64 {
 		return 0
 	}
 	return math.Abs(got-want) / math.Max(math.Abs(want), math.SmallestNonzeroFloat64)
-}
-
-// readCSV reads a committed reference table: a header line, then comma-separated rows.
-func readCSV(tb testing.TB, path string) (header []string, rows [][]string) {
-	tb.Helper()
-	f, err := os.Open(path)
-	if err != nil {
-		tb.Fatal(err)
-	}
-	defer f.Close()
-	sc := bufio.NewScanner(f)
-	for sc.Scan() {
-		line := strings.TrimSpace(sc.Text())
-		if line == "" {
-			continue
-		}
-		fields := strings.Split(line, ",")
-		if header == nil {
-			header = fields
-			continue
-		}
-		if len(fields) != len(header) {
-			tb.Fatalf("%s: row %q has %d fields, header %d", path, line, len(fields), len(header))
-		}
-		rows = append(rows, fields)
-	}
-	if err := sc.Err(); err != nil {
-		tb.Fatal(err)
-	}
-	return header, rows
-}
-
-// atof parses a number of a reference table.
-func atof(tb testing.TB, s string) float64 {
-	tb.Helper()
-	v, err := strconv.ParseFloat(s, 64)
-	if err != nil {
-		tb.Fatal(err)
-	}
-	return v
 }

@@ -3,6 +3,8 @@ package surface
 import (
 	"math"
 	"testing"
+
+	"github.com/pvrec/pvrec/internal/reftable"
 )
 
 // TestSurfaceLifetimeReference: fundamental-mode roots of Sproul's equation, A. B. Sproul,
@@ -11,12 +13,12 @@ import (
 // wafers. Tolerance 1e-13 relative in τs: the root is solved to a few ulp in x.
 func TestSurfaceLifetimeReference(t *testing.T) {
 	const w, d = 0.018, 30.0 // 180 µm, cm^2/s
-	_, rows := readCSV(t, "../../testdata/reference/surface_sproul.csv")
+	rows := reftable.Load(t, "surface_sproul").Rows
 	if len(rows) < 60 {
 		t.Fatalf("only %d rows", len(rows))
 	}
 	for _, row := range rows {
-		h1, h2, want := atof(t, row[0]), atof(t, row[1]), atof(t, row[3])
+		h1, h2, want := reftable.Float(t, row[0]), reftable.Float(t, row[1]), reftable.Float(t, row[3])
 		for _, swap := range []bool{false, true} {
 			s1, s2 := h1*d/w, h2*d/w
 			if swap {
