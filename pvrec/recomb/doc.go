@@ -30,8 +30,9 @@
 //     A. Azzizi, J. Appl. Phys. 95, 1021 (2004); A. A. Istratov, H. Hieslmair and E. R. Weber,
 //     Appl. Phys. A 69, 13 (1999); G. Zoth and W. Bergholz, J. Appl. Phys. 67, 6764 (1990).
 //   - Intrinsic (Auger + radiative as one named mechanism), Sum (any sum).
-//   - DiffusionLength, AmbipolarDiffusivity: W. van Roosbroeck, Phys. Rev. 91, 282 (1953);
-//     S. M. Sze and K. K. Ng, Physics of Semiconductor Devices, 3rd ed. (Wiley, 2007).
+//   - DiffusionLength: L = sqrt(D τ), S. M. Sze and K. K. Ng, Physics of Semiconductor
+//     Devices, 3rd ed. (Wiley, 2007); the ambipolar diffusivity for it is
+//     silicon.AmbipolarDiffusivity.
 //
 // Left out, because their parameters could not be reproduced with confidence: the
 // relative radiative coefficient B_rel of P. P. Altermatt et al. (NUSOD 2005; a

@@ -128,7 +128,7 @@ func name(m any) string {
 
 // DiffusionLength returns the diffusion length L = sqrt(D τ) in cm for lifetime tau in s and
 // diffusivity d in cm²/s (both finite and > 0; tau = +Inf gives L = +Inf). Use the minority
-// diffusivity in low injection and AmbipolarDiffusivity otherwise (textbook relation, e.g.
+// diffusivity in low injection and silicon.AmbipolarDiffusivity otherwise (textbook relation, e.g.
 // S. M. Sze and K. K. Ng, Physics of Semiconductor Devices, 3rd ed., Wiley 2007).
 func DiffusionLength(tau, d float64) (float64, error) {
 	if math.IsNaN(tau) || tau <= 0 {
@@ -138,33 +138,4 @@ func DiffusionLength(tau, d float64) (float64, error) {
 		return 0, err
 	}
 	return math.Sqrt(d * tau), nil
-}
-
-// AmbipolarDiffusivity returns the ambipolar diffusivity in cm²/s,
-//
-//	D_amb = (n + p) Dn Dp / (n Dn + p Dp),
-//
-// for electron and hole densities n, p in cm^-3 (finite, >= 0, not both 0) and electron and
-// hole diffusivities dn, dp in cm²/s (finite, > 0). It tends to the minority-carrier
-// diffusivity in low injection and to 2 Dn Dp/(Dn + Dp) in high injection
-// (W. van Roosbroeck, Phys. Rev. 91, 282 (1953); e.g. Sze and Ng, see DiffusionLength).
-func AmbipolarDiffusivity(n, p, dn, dp float64) (float64, error) {
-	if err := checkDensity("AmbipolarDiffusivity: electron density n", n); err != nil {
-		return 0, err
-	}
-	if err := checkDensity("AmbipolarDiffusivity: hole density p", p); err != nil {
-		return 0, err
-	}
-	if n+p == 0 {
-		return 0, fmt.Errorf("recomb: AmbipolarDiffusivity: electron and hole densities n, p are both 0")
-	}
-	if err := checkPositive("AmbipolarDiffusivity", "electron diffusivity dn", dn, "cm²/s"); err != nil {
-		return 0, err
-	}
-	if err := checkPositive("AmbipolarDiffusivity", "hole diffusivity dp", dp, "cm²/s"); err != nil {
-		return 0, err
-	}
-	// Divide first so that n Dn and p Dp cannot overflow for densities near 1e308.
-	s := n + p
-	return dn * dp / (n/s*dn + p/s*dp), nil
 }

@@ -443,22 +443,8 @@ func TestIronBoronCrossover(t *testing.T) {
 	}
 }
 
-// TestAmbipolarAndDiffusionLength checks D_amb in its limits and L = sqrt(D τ) (textbook
-// closed forms; van Roosbroeck 1953).
-func TestAmbipolarAndDiffusionLength(t *testing.T) {
-	const dn, dp = 36.0, 12.0 // cm²/s, round example values (common practice, no source)
-	for _, tc := range []struct {
-		n, p, want, tol float64
-	}{
-		{1e4, 1e16, dn, 1e-11},                       // p-type low injection: minority electrons
-		{1e16, 1e4, dp, 1e-11},                       // n-type low injection: minority holes
-		{1e17, 1e17, 2 * dn * dp / (dn + dp), 1e-15}, // high injection
-	} {
-		got, err := AmbipolarDiffusivity(tc.n, tc.p, dn, dp)
-		if err != nil || relErr(got, tc.want) > tc.tol {
-			t.Errorf("n=%g p=%g: D = %g, err %v; want %g", tc.n, tc.p, got, err, tc.want)
-		}
-	}
+// TestDiffusionLength checks L = sqrt(D τ) (textbook closed form).
+func TestDiffusionLength(t *testing.T) {
 	l, err := DiffusionLength(1e-3, 30)
 	if err != nil || relErr(l, math.Sqrt(0.03)) > 1e-15 {
 		t.Errorf("L = %g cm, err %v; want %g", l, err, math.Sqrt(0.03))
@@ -534,7 +520,6 @@ func TestBadInput(t *testing.T) {
 		}, "crossover", false},
 		{"D = 0", func() error { _, err := DiffusionLength(1e-3, 0); return err }, "diffusivity d", false},
 		{"τ < 0", func() error { _, err := DiffusionLength(-1, 30); return err }, "lifetime tau", false},
-		{"n, p = 0", func() error { _, err := AmbipolarDiffusivity(0, 0, 30, 10); return err }, "both 0", false},
 		{"nil mechanism", func() error { _, err := Lifetime(nil, s); return err }, "mechanism m", false},
 		{"nil in Sum", func() error { _, err := Sum{nil}.Rate(s); return err }, "mechanism 0", false},
 		{"empty Intrinsic", func() error { _, err := (Intrinsic{}).Rate(s); return err }, "Auger and Radiative", false},
