@@ -133,17 +133,6 @@ func (b Bulk) npExcess() (float64, error) {
 	return x, nil
 }
 
-// ImpliedVoc returns the implied open-circuit voltage Vt ln(n p / ni,eff²) in V of the bulk
-// state, the quasi-Fermi-level splitting at the edge of the space-charge region (Boltzmann
-// statistics, ni,eff at the injected state).
-func (b Bulk) ImpliedVoc() (float64, error) {
-	x, err := b.npExcess()
-	if err != nil {
-		return 0, err
-	}
-	return b.Vt * math.Log1p(x/(b.NiEff*b.NiEff)), nil
-}
-
 // checkNonNeg returns an error unless v is finite and >= 0.
 func checkNonNeg(name, unit string, v float64) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {

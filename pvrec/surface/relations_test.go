@@ -66,23 +66,6 @@ func TestCuevasMacdonaldForm(t *testing.T) {
 	}
 }
 
-// TestImpliedVoc: iVoc = Vt ln(n p / ni²) with n = n0 + Δn, p = p0 + Δn (definition), for an
-// injection-independent ni.
-func TestImpliedVoc(t *testing.T) {
-	mat := refMaterial(t)
-	for _, c := range []struct{ nd, na, dn float64 }{{0, 1e16, 1e15}, {1e15, 0, 1e13}, {0, 1e18, 1e12}} {
-		b := mustBulk(t, mat, c.nd, c.na, c.dn)
-		v, err := b.ImpliedVoc()
-		if err != nil {
-			t.Fatal(err)
-		}
-		want := b.Vt * math.Log((b.N0+c.dn)*(b.P0+c.dn)/1e20)
-		if math.Abs(v-want) > 1e-13 {
-			t.Errorf("%+v: iVoc %.15g V, want %.15g", c, v, want)
-		}
-	}
-}
-
 // TestConstantModels: ConstantSeff returns its S; ConstantJ0s follows SeffFromJ0s.
 func TestConstantModels(t *testing.T) {
 	b := mustBulk(t, defaultMaterial(t), 0, 1e16, 1e15)
@@ -118,7 +101,6 @@ func TestRelationErrors(t *testing.T) {
 		"ConstantSeff neg":  func() (float64, error) { return ConstantSeff{S: -1}.Seff(b) },
 		"ConstantSeff bulk": func() (float64, error) { return ConstantSeff{S: 1}.Seff(bad) },
 		"ConstantJ0s NaN":   func() (float64, error) { return ConstantJ0s{J0s: math.NaN()}.Seff(b) },
-		"ImpliedVoc bulk":   func() (float64, error) { return bad.ImpliedVoc() },
 		"np − ni² not positive": func() (float64, error) {
 			x := b
 			x.NiEff = 1e18 // a BGN model raising ni,eff far faster than n p
