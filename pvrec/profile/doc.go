@@ -1,6 +1,40 @@
-// Package profile: doping profiles; for now sheet resistance of depth/density arrays or a
-// function. A later version adds the profile types (analytic and tabulated), their reader,
-// junction depth and dose.
+// Package profile describes doping profiles below the front surface of a silicon wafer:
+// analytic diffusion profiles, measured (tabulated) profiles read from the package's CSV
+// format, their junction depth, dose and sheet resistance.
+//
+// Depths are in cm (x = 0 at the front surface, increasing into the wafer), densities in
+// cm^-3, doses in cm^-2, sheet resistances in Ω/sq. Convert µm only at the edges.
+//
+// # Profiles
+//
+// A Profile gives the donor and acceptor densities at a depth. The package provides
+//
+//   - Uniform: a constant density of one type (a wafer's background doping);
+//   - Erfc: N = Ns erfc(x/L), diffusion from a constant surface source;
+//   - Gaussian: N = Np exp(−((x − x0)/L)²), diffusion from a limited source or an implant;
+//     both are the textbook solutions of Fick's second law with a constant diffusivity
+//     (for example S. M. Sze and K. K. Ng, Physics of Semiconductor Devices, 3rd ed., Wiley
+//     2007), L = 2 sqrt(D t);
+//   - Sum: a superposition, e.g. Sum{Erfc{...}, Uniform{...}} for a diffusion on a wafer of
+//     either type;
+//   - Tabulated: measured densities interpolated linearly in log density (gonum
+//     interp.PiecewiseLinear), noise and non-monotonic values kept as measured.
+//
+// ReadCSV reads a measured profile in the package's own CSV format, documented in
+// docs/profile-csv.md: comment lines starting with '#', a header "depth (unit), density
+// (cm^-3)" with the depth unit nm, um, mm or cm, and one depth and density per line. Bad input
+// (an empty file, a missing or unknown unit, depths not increasing, negative, zero or NaN
+// values, fewer than two rows) gives an error naming the line. WriteCSV writes the format.
+//
+// # Junction depth, dose
+//
+// JunctionDepth finds the first depth where the net doping nd − na changes sign (a grid
+// search refined by Brent's method, R. P. Brent, Algorithms for Minimization without
+// Derivatives, Prentice-Hall 1973);
+// ErrNoJunction marks high–low junctions and uniform wafers. Dose integrates one dopant's
+// density over a depth range and NetDose the net doping over the surface layer, by
+// Gauss–Legendre quadrature (gonum integrate/quad); Erfc.Dose and Gaussian.Dose give the
+// closed forms.
 //
 // # Sheet resistance
 //
@@ -16,11 +50,15 @@
 // any silicon.Mobility, for example silicon.Klaassen1992 (D. B. M. Klaassen, Solid-State
 // Electron. 35, 953 and 961 (1992)) or silicon.Masetti1983 (G. Masetti, M. Severi and
 // S. Solmi, IEEE Trans. Electron Devices 30, 764 (1983)), evaluated with both dopant densities
-// (the background also scatters).
+// (the background also scatters). SheetOf applies SheetResistanceFunc to a Profile made of a
+// layer on a uniform background.
 //
 // The integral is computed by adaptive Gauss–Legendre quadrature (see SheetRelTol): nodes
 // and weights from gonum.org/v1/gonum/integrate/quad.Legendre, with panels bisected until the
 // 8- and 16-point rules agree (P. J. Davis and P. Rabinowitz, Methods of Numerical
 // Integration, 2nd ed., Academic Press 1984, chapter 6). gonum's quad offers only fixed
 // rules, hence the hand-written adaptive driver.
+//
+// Every type is a value (Tabulated is immutable behind its pointer) and safe for concurrent
+// use.
 package profile

@@ -7,8 +7,11 @@ import (
 )
 
 // BulkRecombination is a bulk recombination mechanism. Rate returns the net recombination
-// rate R in cm^-3 s^-1 at the carrier state s: R is proportional to s.Excess = n p − ni,eff²,
-// so it vanishes in thermal equilibrium (detailed balance) and is positive under injection.
+// rate R in cm^-3 s^-1 at the carrier state s in the form R = s.Excess · c(s), where
+// s.Excess = n p − ni,eff² and the coefficient c depends on the other fields of s but not on
+// Excess. So R vanishes in thermal equilibrium (detailed balance), is positive under
+// injection, and R/Excess at Δn = 0 is the low-injection recombination coefficient (which the
+// j0 solvers rely on; every implementation must keep this form).
 // The lifetime of the mechanism is Δn/R (see Lifetime). Implementations are values, safe for
 // concurrent use, and return an error for an invalid state, invalid parameters or a state
 // outside their validity range.

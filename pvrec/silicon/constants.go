@@ -14,6 +14,14 @@ const (
 	// BoltzmannEV is k/q, the Boltzmann constant in eV/K (equivalently, the thermal
 	// voltage per kelvin in V/K): 8.617333262e-5.
 	BoltzmannEV = BoltzmannJ / ElementaryCharge
+	// VacuumPermittivity is ε0 in F/cm, from gonum's 8.854187817620389e-12 F/m (the pre-2019
+	// exact value; CODATA 2018's differs by 6e-10 relative, far below any model's precision).
+	VacuumPermittivity = float64(constant.ElectricConstant) / 100
+	// RelativePermittivity is the static relative permittivity of silicon at room
+	// temperature, 11.9, as tabulated by S. M. Sze and K. K. Ng, Physics of Semiconductor
+	// Devices, 3rd ed. (Wiley, 2007), Appendix G (value from memory of that table; 11.7 is
+	// also in common use). Space-charge calculations (surface, j0) take it as their default.
+	RelativePermittivity = 11.9
 )
 
 // ThermalVoltage returns the thermal voltage kT/q in V at temperature t in K

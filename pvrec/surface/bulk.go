@@ -6,17 +6,9 @@ import (
 	"math"
 
 	"github.com/pvrec/pvrec/silicon"
-	"gonum.org/v1/gonum/unit/constant"
 )
 
 // Physical constants from gonum.org/v1/gonum/unit/constant.
-const (
-	// ElementaryCharge is the elementary charge q, C (exact SI value).
-	ElementaryCharge = float64(constant.ElementaryCharge)
-	// VacuumPermittivity is ε0 in F/cm, from gonum's 8.854187817620389e-12 F/m (the pre-2019
-	// exact value 1/(μ0 c²); CODATA 2018 gives 8.8541878128e-12 F/m, 6e-10 lower).
-	VacuumPermittivity = float64(constant.ElectricConstant) / 100
-)
 
 // ErrOutOfRange is reported (through errors.Is) by every error of this package for an
 // argument outside a model's validity range, as opposed to an argument that is invalid for

@@ -98,11 +98,9 @@ const (
 	// DefaultVth is the thermal velocity used for electrons and holes by NewExtendedSRH,
 	// 1e7 cm/s (common practice, no source).
 	DefaultVth = 1e7
-	// DefaultEpsR is the relative permittivity of silicon used by NewExtendedSRH, 11.9, the
-	// room-temperature value tabulated by S. M. Sze and K. K. Ng, Physics of Semiconductor
-	// Devices, 3rd ed. (Wiley, 2007), Appendix G (value from memory of that table). Another
-	// value in common use is 11.7; set EpsR to compare.
-	DefaultEpsR = 11.9
+	// DefaultEpsR is the relative permittivity of silicon used by NewExtendedSRH,
+	// silicon.RelativePermittivity (11.9, Sze & Ng 2007); set EpsR to compare another value.
+	DefaultEpsR = silicon.RelativePermittivity
 )
 
 // NewExtendedSRH returns the model for interface states dit with capture cross sections
@@ -391,7 +389,7 @@ func (m ExtendedSRH) solve(b Bulk, maxPanel float64, order int) (Result, error) 
 		return Result{}, err
 	}
 	n, p := b.N(), b.P()
-	k2 := 2 * m.EpsR * VacuumPermittivity * b.Vt / ElementaryCharge
+	k2 := 2 * m.EpsR * silicon.VacuumPermittivity * b.Vt / silicon.ElementaryCharge
 	surf := func(y float64) (float64, float64) { return n * math.Exp(y), p * math.Exp(-y) }
 	qit := func(y float64) float64 {
 		if !m.ChargedStates {
@@ -439,7 +437,7 @@ func (m ExtendedSRH) solve(b Bulk, maxPanel float64, order int) (Result, error) 
 	}
 	r.Us = rateUs(nodes, ns, ps, np)
 	r.Seff = r.Us / b.Dn
-	r.J0s = ElementaryCharge * r.Us * b.NiEff * b.NiEff / np
+	r.J0s = silicon.ElementaryCharge * r.Us * b.NiEff * b.NiEff / np
 	r.Regime = regime(y, ns, ps, b.PType())
 	for _, v := range [...]float64{r.Us, r.Seff, r.J0s, r.Ns, r.Ps} {
 		if math.IsNaN(v) || math.IsInf(v, 0) {

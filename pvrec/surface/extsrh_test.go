@@ -6,6 +6,7 @@ import (
 	"testing"
 
 	"github.com/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/silicon"
 )
 
 // refCase is a row of testdata/reference/surface_extsrh.py (same inputs, by name).
@@ -165,7 +166,7 @@ func TestStrongAccumulationInversion(t *testing.T) {
 			if r.Regime != c.want {
 				t.Errorf("%+v: regime %v", c, r.Regime)
 			}
-			k2 := 2 * m.EpsR * VacuumPermittivity * b.Vt / ElementaryCharge
+			k2 := 2 * m.EpsR * silicon.VacuumPermittivity * b.Vt / silicon.ElementaryCharge
 			q := c.qf + r.Qit // the charge the silicon must balance
 			attracted, sigma := r.Ps, sn
 			if c.qf > 0 {
@@ -212,7 +213,7 @@ func TestDepletionApproximation(t *testing.T) {
 		if !(y > 3 && y < math.Log(maj/mnr)-3) {
 			t.Fatalf("%+v: y = %g not in the depletion range (3, %g)", c, y, math.Log(maj/mnr)-3)
 		}
-		k2 := 2 * m.EpsR * VacuumPermittivity * b.Vt / ElementaryCharge
+		k2 := 2 * m.EpsR * silicon.VacuumPermittivity * b.Vt / silicon.ElementaryCharge
 		want := math.Sqrt(k2 * maj * (y - 1))
 		corr := (maj*math.Exp(-y) + mnr*math.Exp(y)) / (2 * maj * (y - 1))
 		if e := relErr(math.Abs(r.Qs), want); e > 2*corr+1e-14 {

@@ -1,6 +1,10 @@
 package surface
 
-import "fmt"
+import (
+	"fmt"
+
+	"github.com/pvrec/pvrec/silicon"
+)
 
 // SeffFromJ0s returns the effective surface recombination velocity Seff in cm/s of a surface
 // with surface saturation current density j0s (A/cm^2, finite, >= 0) at bulk state b:
@@ -28,7 +32,7 @@ func SeffFromJ0s(j0s float64, b Bulk) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return j0s * x / (ElementaryCharge * b.NiEff * b.NiEff * b.Dn), nil
+	return j0s * x / (silicon.ElementaryCharge * b.NiEff * b.NiEff * b.Dn), nil
 }
 
 // J0sFromSeff returns the surface saturation current density J0s in A/cm^2 of a surface with
@@ -44,7 +48,7 @@ func J0sFromSeff(seff float64, b Bulk) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return ElementaryCharge * seff * b.NiEff * b.NiEff * b.Dn / x, nil
+	return silicon.ElementaryCharge * seff * b.NiEff * b.NiEff * b.Dn / x, nil
 }
 
 // Model is a surface whose recombination is described by an effective surface recombination

@@ -4,6 +4,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/silicon"
 )
 
 // TestSeffJ0sRoundTrip: J0sFromSeff and SeffFromJ0s are inverses (round trip Seff → J0s →
@@ -53,12 +55,12 @@ func TestCuevasMacdonaldForm(t *testing.T) {
 			t.Fatal(err)
 		}
 		ni := 1e10
-		exact := j0s * (b.N0 + b.P0 + c.dn) / (ElementaryCharge * ni * ni)
+		exact := j0s * (b.N0 + b.P0 + c.dn) / (silicon.ElementaryCharge * ni * ni)
 		if relErr(s, exact) > 1e-14 {
 			t.Errorf("%+v: Seff %.15g, want %.15g", c, s, exact)
 		}
 		N := math.Abs(c.nd - c.na)
-		cm := j0s * (N + c.dn) / (ElementaryCharge * ni * ni)
+		cm := j0s * (N + c.dn) / (silicon.ElementaryCharge * ni * ni)
 		minority := math.Min(b.N0, b.P0)
 		if relErr(s, cm) > 2*minority/(N+c.dn)+1e-14 {
 			t.Errorf("%+v: Seff %.15g vs Cuevas–Macdonald form %.15g", c, s, cm)
