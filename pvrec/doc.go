@@ -6,10 +6,16 @@
 //
 //   - fermi: Fermi–Dirac integrals and their inverse (pure mathematics).
 //   - silicon: the material model set at a temperature: band gap, densities of states,
-//     intrinsic density, band-gap narrowing, statistics, equilibrium carriers.
+//     intrinsic density, band-gap narrowing, statistics, equilibrium carriers, mobility and
+//     resistivity.
 //   - recomb: bulk recombination (radiative, Auger, Shockley–Read–Hall with a defect
 //     catalogue), their sums and lifetimes.
-//   - j0: saturation-current densities of bases and diffused regions.
+//   - surface: Seff and J0s, wafer effective lifetime (Sproul 1994), and the extended SRH
+//     interface model with fixed charge and interface defects.
+//   - profile: doping profiles (analytic and measured, with a CSV reader), junction depth,
+//     dose and sheet resistance.
+//   - j0: saturation-current densities of bases and diffused regions: integral forms and the
+//     numerical solver, with concurrent sweeps.
 //   - cell: device-level voltages: implied and ideal-diode open-circuit voltage.
 //   - plots: figure builders on gonum/plot with one house style.
 //   - nb: display helpers for GoNB notebooks.
