@@ -26,6 +26,8 @@
 //   - SRH and SRHDefect (Shockley–Read–Hall, one level): W. Shockley and W. T. Read,
 //     Phys. Rev. 87, 835 (1952); R. N. Hall, Phys. Rev. 87, 387 (1952); thermal velocities
 //     at 300 K of M. A. Green, J. Appl. Phys. 67, 2944 (1990).
+//   - Amphoteric (three charge states, two levels, steady state): C. T. Sah and
+//     W. Shockley, Phys. Rev. 109, 1103 (1958).
 //   - InterstitialIron, IronBoronPair and IronBoron: D. Macdonald, L. J. Geerligs and
 //     A. Azzizi, J. Appl. Phys. 95, 1021 (2004); A. A. Istratov, H. Hieslmair and E. R. Weber,
 //     Appl. Phys. A 69, 13 (1999); G. Zoth and W. Bergholz, J. Appl. Phys. 67, 6764 (1990).

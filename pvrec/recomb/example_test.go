@@ -113,3 +113,38 @@ func ExampleDiffusionLength() {
 	// Output:
 	// L = 1732 µm
 }
+
+// A three-charge-state (amphoteric) defect with invented levels and capture time constants in
+// boron-doped silicon: its lifetime and its charge-state fractions at two injection levels.
+func ExampleAmphoteric() {
+	mat, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		log.Fatal(err)
+	}
+	bulk, err := recomb.NewBulk(mat, 0, 1e16)
+	if err != nil {
+		log.Fatal(err)
+	}
+	d := recomb.Amphoteric{ // invented example values
+		Level1: recomb.AboveEv(0.35), Level2: recomb.BelowEc(0.40),
+		TauN1: 1e-5, TauP1: 1e-3, TauN2: 1e-3, TauP2: 1e-5,
+	}
+	for _, dn := range []float64{1e13, 1e16} {
+		s, err := bulk.State(dn)
+		if err != nil {
+			log.Fatal(err)
+		}
+		tau, err := recomb.Lifetime(d, s)
+		if err != nil {
+			log.Fatal(err)
+		}
+		fp, f0, fm, err := d.Fractions(s)
+		if err != nil {
+			log.Fatal(err)
+		}
+		fmt.Printf("Δn = %.0e cm^-3: τ = %.3g µs, f+ = %.2f, f0 = %.2f, f− = %.2f\n", dn, tau*1e6, fp, f0, fm)
+	}
+	// Output:
+	// Δn = 1e+13 cm^-3: τ = 11 µs, f+ = 0.91, f0 = 0.09, f− = 0.00
+	// Δn = 1e+16 cm^-3: τ = 342 µs, f+ = 0.02, f0 = 0.98, f− = 0.00
+}
