@@ -28,10 +28,10 @@ type Series struct {
 // Axes describes the frame of a figure: a title, axis labels with their units, e.g.
 // "Δn (cm⁻³)", and whether each axis is logarithmic.
 type Axes struct {
-	Title      string
-	XLabel     string
-	YLabel     string
-	LogX, LogY bool
+	Title      string // figure title, empty for none
+	XLabel     string // horizontal axis label with its unit, e.g. "Δn (cm^-3)"
+	YLabel     string // vertical axis label with its unit, e.g. "τ (s)"
+	LogX, LogY bool   // logarithmic axes (every value on them must be > 0)
 }
 
 // Default figure size used by SVG and Save: 16 cm × 10 cm, readable inline in a notebook

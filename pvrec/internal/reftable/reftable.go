@@ -14,9 +14,9 @@ import (
 
 // Table is a reference table: its file name, column names and rows of fields.
 type Table struct {
-	Path   string
-	Header []string
-	Rows   [][]string
+	Path   string     // file the table was read from
+	Header []string   // column names
+	Rows   [][]string // data rows, fields as written
 }
 
 // Load reads testdata/reference/NAME.csv of the repository that contains the working
