@@ -5,5 +5,7 @@
 // It is the only pvrec package that imports gonbui (github.com/janpfeifer/gonb/gonbui). The
 // HTML builders (TableHTML, FooterHTML) are pure functions, so they can be tested and reused
 // outside a notebook; Show, Table, Footer and Markdown send their output to the notebook and
-// do nothing visible when the program does not run under GoNB.
+// do nothing visible when the program does not run under GoNB. Each of them waits until GoNB
+// has the content (gonbui.Sync): without that, a cell whose program ends right after its last
+// display can lose the output.
 package nb

@@ -13,19 +13,22 @@ import (
 )
 
 // Show displays p inline in the notebook as a light SVG (plots.SVGInline) at the house
-// default size.
+// default size. Like every display function here it waits until GoNB has received the
+// content (gonbui.Sync), so that output is not lost when the cell's program ends right after.
 func Show(p *plot.Plot) error {
 	svg, err := plots.SVGInline(p)
 	if err != nil {
 		return fmt.Errorf("nb: %v", err)
 	}
 	gonbui.DisplaySVG(string(svg))
+	gonbui.Sync()
 	return nil
 }
 
 // Markdown displays a Markdown text in the notebook, e.g. a computed conclusion.
 func Markdown(md string) {
 	gonbui.DisplayMarkdown(md)
+	gonbui.Sync()
 }
 
 // TableHTML returns an HTML table with a caption, a header row (put units in the headers,
@@ -68,6 +71,7 @@ func Table(caption string, header []string, rows [][]string) error {
 		return err
 	}
 	gonbui.DisplayHTML(h)
+	gonbui.Sync()
 	return nil
 }
 
@@ -86,4 +90,5 @@ func FooterHTML(models fmt.Stringer) string {
 // Footer displays the provenance footer of FooterHTML in the notebook.
 func Footer(models fmt.Stringer) {
 	gonbui.DisplayHTML(FooterHTML(models))
+	gonbui.Sync()
 }
