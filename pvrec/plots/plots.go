@@ -28,11 +28,24 @@ type Series struct {
 // Axes describes the frame of a figure: a title, axis labels with their units, e.g.
 // "Δn (cm⁻³)", and whether each axis is logarithmic.
 type Axes struct {
-	Title      string // figure title, empty for none
-	XLabel     string // horizontal axis label with its unit, e.g. "Δn (cm^-3)"
-	YLabel     string // vertical axis label with its unit, e.g. "τ (s)"
-	LogX, LogY bool   // logarithmic axes (every value on them must be > 0)
+	Title      string         // figure title, empty for none
+	XLabel     string         // horizontal axis label with its unit, e.g. "Δn (cm^-3)"
+	YLabel     string         // vertical axis label with its unit, e.g. "τ (s)"
+	LogX, LogY bool           // logarithmic axes (every value on them must be > 0)
+	Legend     LegendPosition // corner of the legend; the zero value is TopLeft
 }
+
+// LegendPosition is the corner of the data area where the legend is drawn; pick the one the
+// curves leave free.
+type LegendPosition uint8
+
+// Legend corners.
+const (
+	TopLeft LegendPosition = iota
+	TopRight
+	BottomLeft
+	BottomRight
+)
 
 // Default figure size used by SVG and Save: 16 cm × 10 cm, readable inline in a notebook
 // and in a two-column paper at full width.
@@ -59,6 +72,9 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 	if len(series) == 0 {
 		return nil, fmt.Errorf("plots: no series to draw")
 	}
+	if ax.Legend > BottomRight {
+		return nil, fmt.Errorf("plots: unknown legend position %d", ax.Legend)
+	}
 	for i, s := range series {
 		if err := checkSeries(i, s, ax); err != nil {
 			return nil, err
@@ -77,10 +93,16 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 		p.Y.Scale = plot.LogScale{}
 		p.Y.Tick.Marker = plot.LogTicks{Prec: -1}
 	}
-	p.Legend.Top = true
-	p.Legend.Left = true
+	p.Legend.Top = ax.Legend == TopLeft || ax.Legend == TopRight
+	p.Legend.Left = ax.Legend == TopLeft || ax.Legend == BottomLeft
 	p.Legend.XOffs = vg.Points(6)
+	if !p.Legend.Left {
+		p.Legend.XOffs = -vg.Points(6)
+	}
 	p.Legend.YOffs = -vg.Points(4)
+	if !p.Legend.Top {
+		p.Legend.YOffs = vg.Points(4)
+	}
 	p.Legend.Padding = vg.Points(1)
 	for i, s := range series {
 		xy := make(plotter.XYs, len(s.X))

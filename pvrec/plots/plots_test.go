@@ -96,3 +96,19 @@ func TestFunc(t *testing.T) {
 }
 
 var errTest = errors.New("test failure")
+
+func TestLegendPositions(t *testing.T) {
+	s := Series{Label: "a", X: []float64{1, 2}, Y: []float64{1, 2}}
+	for _, pos := range []LegendPosition{TopLeft, TopRight, BottomLeft, BottomRight} {
+		p, err := Lines(Axes{Legend: pos}, s)
+		if err != nil {
+			t.Fatalf("position %d: %v", pos, err)
+		}
+		if p.Legend.Top != (pos == TopLeft || pos == TopRight) || p.Legend.Left != (pos == TopLeft || pos == BottomLeft) {
+			t.Errorf("position %d: Top=%v Left=%v", pos, p.Legend.Top, p.Legend.Left)
+		}
+	}
+	if _, err := Lines(Axes{Legend: 9}, s); err == nil {
+		t.Errorf("unknown legend position accepted")
+	}
+}
