@@ -207,9 +207,9 @@ func TestRadiative300K(t *testing.T) {
 // TestRichterLimits checks Richter2012 in the limits it reports.
 //   - High injection in undoped silicon: R = C_a Δn³ with C_a = 3.0e-29 Δn^−0.08 (the
 //     parameterisation itself, Richter et al. 2012), which at Δn = 1e16 cm^-3 is within 10 % of
-//     the ambipolar Auger coefficient 1.66e-30 cm⁶/s of R. A. Sinton and R. M. Swanson, IEEE
-//     Trans. Electron Devices 34, 1380 (1987) (value from memory; 10 % is about the spread of
-//     high-injection Auger measurements).
+//     the ambipolar Auger coefficient 1.66e-30 cm⁶/s measured in high injection on lightly doped
+//     silicon, IEEE Trans. Electron Devices 34, 1380 (1987) (value from memory; 10 % is about
+//     the spread of high-injection Auger measurements).
 //   - High doping: C_n g_eeh → 2.5e-31 and C_p g_ehh → 8.5e-32 cm⁶/s, within 15 % of the
 //     Dziewior–Schmid coefficients 2.8e-31 and 9.9e-32 cm⁶/s (J. Dziewior and W. Schmid,
 //     Appl. Phys. Lett. 31, 346 (1977)); 15 % is our tolerance for two independent
@@ -228,7 +228,7 @@ func TestRichterLimits(t *testing.T) {
 		}
 		if dn == 1e16 {
 			if e := relErr(ca, 1.66e-30); e > 0.10 {
-				t.Errorf("Δn=1e16: C_a = %g, want 1.66e-30 within 10 %% (Sinton & Swanson 1987)", ca)
+				t.Errorf("Δn=1e16: C_a = %g, want 1.66e-30 within 10 %% (high-injection measurement, 1987)", ca)
 			}
 		}
 	}
