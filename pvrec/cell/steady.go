@@ -1,6 +1,7 @@
 package cell
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -65,32 +66,21 @@ func SteadyStateExcess(g float64, tau func(dn float64) (float64, error)) (float6
 	// level), so that tau is evaluated only near the answer and never far outside a lifetime
 	// model's own validity range unless the answer lies there.
 	xmin, xmax := math.Log(MinExcess), math.Log(MaxExcess)
-	lo := math.Log(1e15)
-	flo, err := f(lo)
+	x0 := math.Log(1e15)
+	f0, err := f(x0)
 	if err != nil {
 		return 0, err
 	}
-	hi, fhi := lo, flo
-	for flo > 0 || fhi < 0 {
-		if flo > 0 { // the balance lies lower
-			if lo == xmin {
-				return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances below Δn = %g cm^-3", g, MinExcess)
-			}
-			hi, fhi = lo, flo
-			lo = math.Max(lo-math.Ln10, xmin)
-			if flo, err = f(lo); err != nil {
-				return 0, err
-			}
-		} else { // the balance lies higher
-			if hi == xmax {
-				return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances above Δn = %g cm^-3", g, MaxExcess)
-			}
-			lo, flo = hi, fhi
-			hi = math.Min(hi+math.Ln10, xmax)
-			if fhi, err = f(hi); err != nil {
-				return 0, err
-			}
+	lo, hi, flo, fhi, err := roots.Bracket(f, x0, f0, math.Ln10, 1, xmin, xmax, true)
+	if errors.Is(err, roots.ErrNoBracket) {
+		where := fmt.Sprintf("above Δn = %g cm^-3", MaxExcess)
+		if f0 > 0 {
+			where = fmt.Sprintf("below Δn = %g cm^-3", MinExcess)
 		}
+		return 0, fmt.Errorf("cell: SteadyStateExcess: g = %g cm^-3 s^-1 balances %s", g, where)
+	}
+	if err != nil {
+		return 0, err
 	}
 	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-13, 300)
 	if err != nil {

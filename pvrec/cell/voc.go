@@ -1,6 +1,7 @@
 package cell
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
@@ -91,36 +92,14 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 	if f0 == 0 {
 		return dn0, nil
 	}
-	// Grow a bracket [lo, hi] with f(lo) < 0 < f(hi).
-	lo, hi, flo, fhi := x0, x0, f0, f0
-	step := 1e-3
-	for i := 0; ; i++ {
-		if i == 200 {
-			return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: no bracket found for voc = %g V", voc)
-		}
-		if f0 < 0 {
-			lo, flo = hi, fhi
-			hi = math.Min(hi+step, xmax)
-			if fhi, err = f(hi); err != nil {
-				return 0, err
-			}
-			if fhi >= 0 {
-				break
-			}
-			if hi == xmax {
-				return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above MaxExcess = %g cm^-3", voc, MaxExcess)
-			}
-		} else {
-			hi, fhi = lo, flo
-			lo -= step
-			if flo, err = f(lo); err != nil {
-				return 0, err
-			}
-			if flo <= 0 {
-				break
-			}
-		}
-		step *= 2
+	// Bracket the root outward from the closed-form start in steps of 1e-3 in ln Δn, doubled
+	// each time (the start is usually within a few kT of the answer).
+	lo, hi, flo, fhi, err := roots.Bracket(f, x0, f0, 1e-3, 2, math.Log(math.SmallestNonzeroFloat64), xmax, true)
+	if errors.Is(err, roots.ErrNoBracket) {
+		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above MaxExcess = %g cm^-3 (%v)", voc, MaxExcess, err)
+	}
+	if err != nil {
+		return 0, err
 	}
 	if flo == 0 {
 		return math.Exp(lo), nil

@@ -41,12 +41,10 @@ func (m Amphoteric) String() string {
 // Rate returns the net rate in cm^-3 s^-1 at s (see Amphoteric), or an error for an invalid
 // state, a level outside the gap or time constants that are not finite and > 0.
 func (m Amphoteric) Rate(s State) (float64, error) {
-	fp, f0, _, err := m.Fractions(s)
+	fp, f0, _, n11, n12, err := m.fractions(s)
 	if err != nil {
 		return 0, err
 	}
-	n11, _, _ := m.Level1.n1p1(s) // validated by Fractions
-	n12, _, _ := m.Level2.n1p1(s)
 	return s.Excess * (fp/(m.TauP1*n11+m.TauN1*s.P) + f0/(m.TauP2*n12+m.TauN2*s.P)), nil
 }
 
@@ -56,24 +54,31 @@ func (m Amphoteric) Rate(s State) (float64, error) {
 // equilibrium they are the Fermi–Dirac occupations of the two levels (f0/f+ = n/n1₁,
 // f−/f0 = n/n1₂; degeneracy factors folded into the levels).
 func (m Amphoteric) Fractions(s State) (fp, f0, fm float64, err error) {
+	fp, f0, fm, _, _, err = m.fractions(s)
+	return fp, f0, fm, err
+}
+
+// fractions returns the charge-state fractions and the SRH densities n1 of both levels, which
+// Rate needs too (so that the levels are evaluated once per call).
+func (m Amphoteric) fractions(s State) (fp, f0, fm, n11, n12 float64, err error) {
 	if err := s.check(); err != nil {
-		return 0, 0, 0, err
+		return 0, 0, 0, 0, 0, err
 	}
 	for _, t := range [...]struct {
 		name string
 		v    float64
 	}{{"TauN1", m.TauN1}, {"TauP1", m.TauP1}, {"TauN2", m.TauN2}, {"TauP2", m.TauP2}} {
 		if err := checkPositive("Amphoteric", t.name, t.v, "s"); err != nil {
-			return 0, 0, 0, err
+			return 0, 0, 0, 0, 0, err
 		}
 	}
 	n11, p11, err := m.Level1.n1p1(s)
 	if err != nil {
-		return 0, 0, 0, err
+		return 0, 0, 0, 0, 0, err
 	}
 	n12, p12, err := m.Level2.n1p1(s)
 	if err != nil {
-		return 0, 0, 0, err
+		return 0, 0, 0, 0, 0, err
 	}
 	// Ratios written as (capture + emission into the next state)/(the reverse), each a ratio
 	// of sums of positive terms, so nothing cancels.
@@ -83,5 +88,5 @@ func (m Amphoteric) Fractions(s State) (fp, f0, fm float64, err error) {
 	// that they stay exact when either ratio overflows (r1, r2 > 0 since p1 > 0).
 	inv1, inv2 := 1/r1, 1/r2
 	d := inv1 + 1 + r2
-	return inv1 / d, 1 / d, 1 / (inv1*inv2 + inv2 + 1), nil
+	return inv1 / d, 1 / d, 1 / (inv1*inv2 + inv2 + 1), n11, n12, nil
 }

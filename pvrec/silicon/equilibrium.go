@@ -1,10 +1,12 @@
 package silicon
 
 import (
+	"errors"
 	"fmt"
 	"math"
 
 	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/internal/roots"
 )
 
 // Equilibrium is the thermal-equilibrium state of doped silicon returned by
@@ -147,36 +149,25 @@ func (m *Material) bgnFallback(nd, na float64, hist [][2]float64) (float64, erro
 			hi, fhi = h[0], h[1]
 		}
 	}
-	last := hist[len(hist)-1]
-	step := math.Max(2*math.Abs(last[1]), 1e-6)
-	for math.IsInf(lo, -1) || math.IsInf(hi, 1) {
-		if step > 20 {
+	if math.IsInf(lo, -1) && math.IsInf(hi, 1) { // every residual was exactly 0: converged
+		return hist[len(hist)-1][0], nil
+	}
+	if math.IsInf(lo, -1) || math.IsInf(hi, 1) {
+		// Only one side is known: expand from it, phi being decreasing, in steps growing from
+		// twice the last residual up to 20 eV away.
+		x0, f0 := hi, fhi
+		if math.IsInf(hi, 1) {
+			x0, f0 = lo, flo
+		}
+		step := math.Max(2*math.Abs(hist[len(hist)-1][1]), 1e-6)
+		var err error
+		lo, hi, flo, fhi, err = roots.Bracket(phi, x0, f0, step, 2, x0-20, x0+20, false)
+		if errors.Is(err, roots.ErrNoBracket) {
 			return 0, fmt.Errorf("silicon: BGN model %s: no self-consistent band-gap narrowing found", modelName(m.ms.BGN))
 		}
-		if math.IsInf(lo, -1) {
-			x := hi - step
-			f, err := phi(x)
-			if err != nil {
-				return 0, err
-			}
-			if f >= 0 {
-				lo, flo = x, f
-			} else {
-				hi, fhi = x, f
-			}
-		} else {
-			x := lo + step
-			f, err := phi(x)
-			if err != nil {
-				return 0, err
-			}
-			if f <= 0 {
-				hi, fhi = x, f
-			} else {
-				lo, flo = x, f
-			}
+		if err != nil {
+			return 0, err
 		}
-		step *= 2
 	}
 	return brentRoot(phi, lo, hi, flo, fhi, bgnTolEV)
 }

@@ -100,3 +100,49 @@ func Brent(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter
 	}
 	return 0, fmt.Errorf("no root to tolerance in %d iterations (bracket [%g, %g]): %w", maxIter, b, c, ErrNoConvergence)
 }
+
+// Bracket searches outward from x0, where f = f0, for an interval [lo, hi] on which the
+// monotone function f changes sign (flo = f(lo) and fhi = f(hi) of opposite signs, or one of
+// them zero), ready for Brent. increasing says whether f rises with x, which fixes the
+// direction of the search; steps start at step (> 0) and are multiplied by grow (>= 1) after
+// each evaluation, and the search stops at xmin or xmax (xmin <= x0 <= xmax). If f0 = 0 it
+// returns lo = hi = x0. An error from f is returned unchanged; reaching a limit without a sign
+// change gives ErrNoBracket, wrapped with the limit.
+func Bracket(f func(float64) (float64, error), x0, f0, step, grow, xmin, xmax float64, increasing bool) (lo, hi, flo, fhi float64, err error) {
+	if f0 == 0 {
+		return x0, x0, f0, f0, nil
+	}
+	if math.IsNaN(f0) || !(step > 0) || !(grow >= 1) || !(xmin <= x0 && x0 <= xmax) {
+		return 0, 0, 0, 0, fmt.Errorf("bracket from x0 = %g (f = %g) with step %g, growth %g in [%g, %g]: %w",
+			x0, f0, step, grow, xmin, xmax, ErrNoBracket)
+	}
+	up := (f0 < 0) == increasing // the root lies above x0
+	x, fx := x0, f0
+	for {
+		prev, fprev := x, fx
+		if up {
+			if x == xmax {
+				return 0, 0, 0, 0, fmt.Errorf("no sign change up to x = %g: %w", xmax, ErrNoBracket)
+			}
+			x = math.Min(x+step, xmax)
+		} else {
+			if x == xmin {
+				return 0, 0, 0, 0, fmt.Errorf("no sign change down to x = %g: %w", xmin, ErrNoBracket)
+			}
+			x = math.Max(x-step, xmin)
+		}
+		if fx, err = f(x); err != nil {
+			return 0, 0, 0, 0, err
+		}
+		if math.IsNaN(fx) {
+			return 0, 0, 0, 0, fmt.Errorf("f(%g) is NaN: %w", x, ErrNoConvergence)
+		}
+		if fx == 0 || (fx > 0) != (fprev > 0) {
+			if up {
+				return prev, x, fprev, fx, nil
+			}
+			return x, prev, fx, fprev, nil
+		}
+		step *= grow
+	}
+}

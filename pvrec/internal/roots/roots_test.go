@@ -94,3 +94,50 @@ func FuzzBrent(f *testing.F) {
 		}
 	})
 }
+
+func TestBracket(t *testing.T) {
+	inc := func(x float64) (float64, error) { return x - 7.5, nil }
+	dec := func(x float64) (float64, error) { return 7.5 - x, nil }
+	for _, c := range []struct {
+		name       string
+		f          func(float64) (float64, error)
+		increasing bool
+		x0         float64
+	}{
+		{"increasing from below", inc, true, 0},
+		{"increasing from above", inc, true, 20},
+		{"decreasing from below", dec, false, 0},
+		{"decreasing from above", dec, false, 20},
+	} {
+		f0, _ := c.f(c.x0)
+		lo, hi, flo, fhi, err := Bracket(c.f, c.x0, f0, 1, 2, -100, 100, c.increasing)
+		if err != nil {
+			t.Errorf("%s: %v", c.name, err)
+			continue
+		}
+		if !(lo < 7.5 && 7.5 < hi) || (flo > 0) == (fhi > 0) {
+			t.Errorf("%s: [%g, %g] with f %g, %g does not bracket 7.5", c.name, lo, hi, flo, fhi)
+		}
+		if r, err := Brent(c.f, lo, hi, flo, fhi, 1e-14, 100); err != nil || math.Abs(r-7.5) > 1e-13 {
+			t.Errorf("%s: Brent on the bracket gives %g, %v", c.name, r, err)
+		}
+	}
+	// Fixed steps (grow = 1) visit every step: from 0 in steps of 1 the bracket is [7, 8].
+	if lo, hi, _, _, err := Bracket(inc, 0, -7.5, 1, 1, -100, 100, true); err != nil || lo != 7 || hi != 8 {
+		t.Errorf("fixed steps: [%g, %g], %v", lo, hi, err)
+	}
+	if _, _, _, _, err := Bracket(inc, 0, -7.5, 1, 2, -100, 5, true); !errors.Is(err, ErrNoBracket) {
+		t.Errorf("limit reached: %v", err)
+	}
+	if lo, hi, _, _, err := Bracket(inc, 7.5, 0, 1, 2, -100, 100, true); err != nil || lo != 7.5 || hi != 7.5 {
+		t.Errorf("root at x0: [%g, %g], %v", lo, hi, err)
+	}
+	if _, _, _, _, err := Bracket(inc, 0, -7.5, 0, 2, -100, 100, true); !errors.Is(err, ErrNoBracket) {
+		t.Errorf("zero step accepted: %v", err)
+	}
+	boom := errors.New("boom")
+	bad := func(float64) (float64, error) { return 0, boom }
+	if _, _, _, _, err := Bracket(bad, 0, -1, 1, 2, -100, 100, true); !errors.Is(err, boom) {
+		t.Errorf("error from f not passed on: %v", err)
+	}
+}
