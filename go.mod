@@ -1,4 +1,4 @@
-module github.com/pvrec
+module github.com/pvrec/pvrec
 
 go 1.26
 

@@ -6,9 +6,9 @@ import (
 	"sync"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // fixedMaterial is a test material with Boltzmann statistics, no narrowing and ni = 1e10

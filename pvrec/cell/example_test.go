@@ -4,9 +4,9 @@ import (
 	"fmt"
 	"log"
 
-	"github.com/pvrec/pvrec/cell"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/cell"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // The implied Voc of a boron-doped wafer at 300 K for a few excess carrier densities, with the

@@ -5,8 +5,8 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/internal/roots"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // MinExcess is the smallest excess carrier density, in cm^-3, that SteadyStateExcess searches:

@@ -6,8 +6,8 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 func TestGenerationRate(t *testing.T) {

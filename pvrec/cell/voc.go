@@ -5,9 +5,9 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/internal/roots"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // MaxExcess is the largest excess carrier density, in cm^-3, that ExcessFromImpliedVoc

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // The reduced electron density n/Nc of a parabolic band at a few reduced Fermi levels

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"gonum.org/v1/gonum/unit/constant"
 )
 

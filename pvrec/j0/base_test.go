@@ -5,9 +5,9 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 func relErr(got, want float64) float64 { return math.Abs(got/want - 1) }

@@ -3,8 +3,8 @@ package j0
 import (
 	"testing"
 
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // benchEmitter is the benchmark case: a 1 µm erfc phosphorus emitter (surface 1e20

@@ -4,9 +4,9 @@ import (
 	"fmt"
 	"log"
 
-	"github.com/pvrec/pvrec/j0"
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/j0"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // The J0 of a phosphorus emitter (erfc, 1e20 cm^-3 at the surface, L = 0.36 µm) on a

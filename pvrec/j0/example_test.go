@@ -5,7 +5,7 @@ import (
 	"log"
 	"math"
 
-	"github.com/pvrec/pvrec/j0"
+	"github.com/pvrec/pvrec/pvrec/j0"
 )
 
 // The base J0 of a 180 µm, 1 Ω·cm-like p-type wafer with a 1 ms electron lifetime, for a

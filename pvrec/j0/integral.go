@@ -6,7 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Estimate is J0 of a region from one of the integral forms (Solver.Transparent and

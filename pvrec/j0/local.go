@@ -4,9 +4,9 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Mechanism indices of the recombination breakdown.

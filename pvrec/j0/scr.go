@@ -5,9 +5,9 @@ import (
 	"math"
 	"sort"
 
-	"github.com/pvrec/pvrec/internal/roots"
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // RelPermittivity is the relative permittivity of silicon used for space-charge regions,

@@ -5,8 +5,8 @@ import (
 	"math"
 	"testing"
 
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // stepJunction is an abrupt junction: donors nd above xj, acceptors na below.

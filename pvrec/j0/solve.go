@@ -5,8 +5,8 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // ErrNotConverged is reported (through errors.Is) by Solver.Solve when the mesh reached

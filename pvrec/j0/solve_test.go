@@ -6,10 +6,10 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 func relDiff(got, want float64) float64 {

@@ -3,7 +3,7 @@ package nb_test
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/nb"
+	"github.com/pvrec/pvrec/pvrec/nb"
 )
 
 // Build the HTML of a small results table; in a notebook, nb.Table displays it directly.

@@ -8,8 +8,8 @@ import (
 	"github.com/janpfeifer/gonb/gonbui"
 	"gonum.org/v1/plot"
 
-	"github.com/pvrec/pvrec"
-	"github.com/pvrec/pvrec/plots"
+	"github.com/pvrec/pvrec/pvrec"
+	"github.com/pvrec/pvrec/pvrec/plots"
 )
 
 // Show displays p inline in the notebook as a light SVG (plots.SVGInline) at the house

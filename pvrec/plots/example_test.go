@@ -3,7 +3,7 @@ package plots_test
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/plots"
+	"github.com/pvrec/pvrec/pvrec/plots"
 )
 
 // A figure of lifetime versus injection on log–log axes, rendered to SVG.

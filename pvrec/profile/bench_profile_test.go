@@ -5,7 +5,7 @@ import (
 	"os"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 var benchSink float64

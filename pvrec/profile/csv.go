@@ -9,7 +9,7 @@ import (
 	"strconv"
 	"strings"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Measured is a measured profile as read by ReadCSV from the package's CSV format (described

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // TestTabulated checks the interpolation in log density (definition): exact at the data,

@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // The sheet resistance of a Gaussian phosphorus emitter (surface density 2e20 cm^-3,

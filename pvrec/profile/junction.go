@@ -8,8 +8,8 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
-	"github.com/pvrec/pvrec/internal/roots"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // ErrNoJunction is reported (through errors.Is) when the net doping of a profile keeps its

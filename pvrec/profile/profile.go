@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Profile is a doping profile: the donor and acceptor densities of silicon versus the depth x

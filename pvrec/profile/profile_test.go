@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 func relDiff(got, want float64) float64 {

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
 )
 

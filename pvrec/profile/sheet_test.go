@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
 )
 

@@ -6,7 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/interp"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Tabulated is a measured profile of one dopant, such as a SIMS or ECV profile: densities

@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // BenchmarkIntrinsicLifetimeCurve computes the intrinsic lifetime (NewIntrinsic: Richter2012 +

@@ -5,7 +5,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Material is what the bulk mechanisms need from the material model set at one temperature.

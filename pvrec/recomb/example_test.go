@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"log"
 
-	"github.com/pvrec/pvrec/recomb"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // The intrinsic lifetime limit (Richter2012 Auger + Trupke2003 radiative) of phosphorus-doped

@@ -5,7 +5,7 @@ import (
 	"sync"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // fixedMaterial is a test material with Boltzmann statistics, no band-gap narrowing and

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 )
 
 // TestDetailedBalance checks that every mechanism has zero net rate in thermal equilibrium,

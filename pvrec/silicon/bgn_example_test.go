@@ -3,7 +3,7 @@ package silicon_test
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // The default band-gap narrowing depends on the free carriers as well as on the doping:

@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 	"gonum.org/v1/gonum/unit/constant"
 )
 

@@ -70,7 +70,7 @@
 //   - FixedNi: a constant ni for hand calculations; default 1.00e10 cm^-3.
 //
 // Statistics: Boltzmann and FermiDirac, the Fermi–Dirac integrals from package
-// github.com/pvrec/pvrec/fermi.
+// github.com/pvrec/pvrec/pvrec/fermi.
 //
 // Ionisation (Ionization): CompleteIonization only. The incomplete-ionisation model of
 // P. P. Altermatt, A. Schenk, B. Schmithüsen and G. Heiser, J. Appl. Phys. 100, 113714 and

@@ -5,8 +5,8 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/fermi"
-	"github.com/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 )
 
 // Equilibrium is the thermal-equilibrium state of doped silicon returned by

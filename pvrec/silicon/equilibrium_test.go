@@ -6,7 +6,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // residual returns |n0 − p0 − Nd⁺ + Na⁻| relative to the sum of the magnitudes.

@@ -3,7 +3,7 @@ package silicon_test
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 func ExampleModelSet_At() {

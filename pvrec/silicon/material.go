@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // Material is silicon described by a ModelSet at one temperature, with the

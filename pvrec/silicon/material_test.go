@@ -8,7 +8,7 @@ import (
 	"sync"
 	"testing"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // carrierBGN is a test fake: a carrier-dependent narrowing ΔEg = A + B·2kT·ln(sqrt(n p)/ni0),

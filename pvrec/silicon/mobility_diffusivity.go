@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // Diffusivity returns the diffusivity D = μ kT/q in cm²/s of non-degenerate carriers with

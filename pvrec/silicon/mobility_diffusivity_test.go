@@ -5,7 +5,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/fermi"
+	"github.com/pvrec/pvrec/pvrec/fermi"
 )
 
 // TestEinsteinNonDegenerate checks D = μ kT/q: kT/q = 25.852 mV at 300 K (CODATA 2018

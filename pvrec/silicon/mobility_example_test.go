@@ -3,7 +3,7 @@ package silicon_test
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Majority- and minority-carrier mobilities at 300 K from Klaassen's unified model: at

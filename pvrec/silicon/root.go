@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 )
 
 // brentRoot returns a root of f in the bracket [a, b], where fa = f(a) and fb = f(b) have

@@ -4,7 +4,7 @@ import (
 	"errors"
 	"fmt"
 
-	"github.com/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 )
 
 // brent finds a root of f in the bracket [a, b] (fa = f(a), fb = f(b) of opposite signs) to

@@ -5,7 +5,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Physical constants from gonum.org/v1/gonum/unit/constant.

@@ -4,8 +4,8 @@ import (
 	"fmt"
 	"log"
 
-	"github.com/pvrec/pvrec/silicon"
-	"github.com/pvrec/pvrec/surface"
+	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/surface"
 )
 
 // An invented dielectric on an invented wafer: fixed charge −2e12 cm^-2, a U-shaped Dit with

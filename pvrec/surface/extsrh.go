@@ -5,7 +5,7 @@ import (
 	"math"
 	"sort"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // Validity range of ExtendedSRH (ErrOutOfRange outside it).

@@ -5,8 +5,8 @@ import (
 	"math"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // refCase is a row of testdata/reference/surface_extsrh.py (same inputs, by name).

@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // refMaterial is the material of the mpmath reference tables: 300 K, Boltzmann statistics,

@@ -3,7 +3,7 @@ package surface
 import (
 	"fmt"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // SeffFromJ0s returns the effective surface recombination velocity Seff in cm/s of a surface

@@ -5,7 +5,7 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // TestSeffJ0sRoundTrip: J0sFromSeff and SeffFromJ0s are inverses (round trip Seff → J0s →

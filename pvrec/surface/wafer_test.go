@@ -4,7 +4,7 @@ import (
 	"math"
 	"testing"
 
-	"github.com/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 )
 
 // TestSurfaceLifetimeReference: fundamental-mode roots of Sproul's equation, A. B. Sproul,

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"github.com/pvrec/pvrec/internal/roots"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 )
 
 // Solve x = cos x on [0, 1].

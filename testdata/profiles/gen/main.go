@@ -25,7 +25,7 @@ import (
 	"os"
 	"strconv"
 
-	"github.com/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/profile"
 )
 
 func main() {
