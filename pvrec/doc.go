@@ -11,16 +11,24 @@
 //   - recomb: bulk recombination (radiative, Auger, Shockley–Read–Hall with a defect
 //     catalogue), their sums and lifetimes.
 //   - surface: Seff and J0s, wafer effective lifetime (Sproul 1994), and the extended SRH
-//     interface model with fixed charge and interface defects.
+//     interface model with fixed charge and interface defects, all evaluated at recomb's
+//     wafer state.
 //   - profile: doping profiles (analytic and measured, with a CSV reader), junction depth,
 //     dose and sheet resistance.
 //   - j0: saturation-current densities of bases and diffused regions: integral forms and the
-//     numerical solver, with concurrent sweeps.
+//     numerical solver.
+//   - lifetime: lifetime samples: steady state under generation (more to come).
 //   - cell: device-level voltages: implied and ideal-diode open-circuit voltage.
+//   - sweep: concurrent evaluation over an index range, results in input order, panics
+//     turned into errors (no physics; used by j0 and the notebooks).
 //   - plots: figure builders on gonum/plot with one house style.
 //   - nb: display helpers for GoNB notebooks.
 //
 // Units are the field's throughout: cm, cm^-3, s, A/cm^2, V, K, eV.
+//
+// Errors: every package reports an argument outside a model's validity range with an error
+// matching ErrOutOfRange (errors.Is; errors.As with *RangeError gives the argument and the
+// range) and a solver that could not meet its tolerance with one matching ErrNoConvergence.
 package pvrec
 
 // Version is the version of the pvrec library, stamped on results and figures.

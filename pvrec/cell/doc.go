@@ -1,6 +1,4 @@
-// Package cell: device-level voltages; more later.
-//
-// For now it holds the implied open-circuit voltage of a quasi-neutral bulk and its inverse,
+// Package cell holds device-level voltages. For now it holds the implied open-circuit voltage of a quasi-neutral bulk and its inverse,
 // and the ideal-diode relations between Voc, J0 and Jsc:
 //
 //   - ImpliedVoc, ExcessFromImpliedVoc: q iVoc = kT ln(n p / ni,eff²), the separation of the

@@ -54,7 +54,11 @@ func ExampleExcessFromImpliedVoc() {
 
 // The open-circuit voltage of a cell with J0 = 100 fA/cm² and Jsc = 40 mA/cm² at 25 °C.
 func ExampleIdealDiodeVoc() {
-	v, err := cell.IdealDiodeVoc(100e-15, 40e-3, 1, 298.15)
+	si, err := silicon.DefaultModelSet().At(298.15) // the temperature comes with the material
+	if err != nil {
+		log.Fatal(err)
+	}
+	v, err := cell.IdealDiodeVoc(100e-15, 40e-3, 1, si)
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -65,7 +69,11 @@ func ExampleIdealDiodeVoc() {
 
 // The saturation current density that a measured Voc of 720 mV at Jsc = 41 mA/cm² implies.
 func ExampleJ0FromVoc() {
-	j0, err := cell.J0FromVoc(0.720, 41e-3, 1, 298.15)
+	si, err := silicon.DefaultModelSet().At(298.15)
+	if err != nil {
+		log.Fatal(err)
+	}
+	j0, err := cell.J0FromVoc(0.720, 41e-3, 1, si)
 	if err != nil {
 		log.Fatal(err)
 	}

@@ -5,14 +5,11 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
-
-// MaxExcess is the largest excess carrier density, in cm^-3, that ExcessFromImpliedVoc
-// returns (the top of the range over which the package is tested; common practice).
-const MaxExcess = 1e21
 
 // ImpliedVoc returns the implied open-circuit voltage in V of the quasi-neutral bulk b at
 // excess carrier density dn = Δn in cm^-3 (finite, >= 0),
@@ -20,26 +17,26 @@ const MaxExcess = 1e21
 //	q iVoc = kT ln(n p / ni,eff²),  n = n0 + Δn,  p = p0 + Δn,
 //
 // with ni,eff from b's material at (n, p), so band-gap narrowing (also its injection
-// dependence) and degeneracy are included. It is computed as kT/q · log1p((n p − ni,eff²)/
-// ni,eff²) with the cancellation-free excess of recomb.Bulk.State, so it keeps full relative
-// accuracy for small Δn (iVoc → 0 linearly as Δn → 0). It returns an error for a nil b,
-// invalid dn, or an error of the material (wrapped).
+// dependence) and degeneracy are included. It is recomb.State.ImpliedVoc of b.State(dn),
+// which keeps full relative accuracy for small Δn (iVoc → 0 linearly as Δn → 0). It returns
+// an error for a nil b, invalid dn (above recomb.MaxExcess included), or an error of the
+// material (wrapped).
 func ImpliedVoc(b *recomb.Bulk, dn float64) (float64, error) {
 	if b == nil {
 		return 0, fmt.Errorf("cell: ImpliedVoc: bulk b is nil")
 	}
-	if math.IsNaN(dn) || math.IsInf(dn, 0) || dn < 0 {
-		return 0, fmt.Errorf("cell: ImpliedVoc: excess carrier density Δn must be finite and >= 0 cm^-3, got %g", dn)
+	if err := check.Density("cell: ImpliedVoc", "excess carrier density Δn", dn); err != nil {
+		return 0, err
 	}
 	s, err := b.State(dn)
 	if err != nil {
 		return 0, fmt.Errorf("cell: ImpliedVoc: %w", err)
 	}
-	return impliedVoc(s), nil
-}
-
-func impliedVoc(s recomb.State) float64 {
-	return s.Vt * math.Log1p(s.Excess/(s.NiEff*s.NiEff))
+	v, err := s.ImpliedVoc()
+	if err != nil {
+		return 0, fmt.Errorf("cell: ImpliedVoc: %w", err)
+	}
+	return v, nil
 }
 
 // ExcessFromImpliedVoc returns the excess carrier density Δn in cm^-3 at which the bulk b has
@@ -50,10 +47,9 @@ func impliedVoc(s recomb.State) float64 {
 // Δn = 2c/(b + sqrt(b² + 4c)) with b = n0 + p0 and c = n0 p0 expm1(q voc/kT) (the stable root
 // of Δn² + bΔn − c = 0). With injection-dependent band-gap narrowing this is the starting
 // point: a bracket on ln Δn is grown geometrically from it until ImpliedVoc − voc changes
-// sign, and the root is refined by the Illinois variant of regula falsi with bisection as a
-// fallback, to a relative accuracy of about 1e-13 in Δn (hand-written: gonum has no bracketed
-// scalar root finder). It returns an error for a nil b, invalid voc, a voc that needs
-// Δn > MaxExcess, or an error of the material.
+// sign, and the root is refined by Brent's method to a relative accuracy of about 1e-15 in
+// Δn. It returns an error for a nil b, invalid voc, a voc that needs Δn > recomb.MaxExcess,
+// or an error of the material.
 func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 	if b == nil {
 		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: bulk b is nil")
@@ -71,19 +67,23 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 		if err != nil {
 			return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: %w", err)
 		}
-		return impliedVoc(s) - voc, nil
+		v, err := s.ImpliedVoc()
+		if err != nil {
+			return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: %w", err)
+		}
+		return v - voc, nil
 	}
 	vt := b.Material().Vt()
 	bb := eq.N0 + eq.P0
 	c := eq.N0 * eq.P0 * math.Expm1(voc/vt)
 	dn0 := 2 * c / (bb + math.Sqrt(bb*bb+4*c))
-	if math.IsInf(c, 0) || dn0 > MaxExcess {
-		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above MaxExcess = %g cm^-3", voc, MaxExcess)
+	if math.IsInf(c, 0) || dn0 > recomb.MaxExcess {
+		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above recomb.MaxExcess = %g cm^-3", voc, recomb.MaxExcess)
 	}
 	if !(dn0 > 0) {
 		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V gives Δn = %g cm^-3, not representable", voc, dn0)
 	}
-	xmax := math.Log(MaxExcess)
+	xmax := math.Log(recomb.MaxExcess)
 	x0 := math.Log(dn0)
 	f0, err := f(x0)
 	if err != nil {
@@ -96,7 +96,7 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 	// each time (the start is usually within a few kT of the answer).
 	lo, hi, flo, fhi, err := roots.Bracket(f, x0, f0, 1e-3, 2, math.Log(math.SmallestNonzeroFloat64), xmax, true)
 	if errors.Is(err, roots.ErrNoBracket) {
-		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above MaxExcess = %g cm^-3 (%v)", voc, MaxExcess, err)
+		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above recomb.MaxExcess = %g cm^-3 (%v)", voc, recomb.MaxExcess, err)
 	}
 	if err != nil {
 		return 0, err
@@ -118,77 +118,63 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 
 // IdealDiodeVoc returns the open-circuit voltage in V of an ideal diode with saturation
 // current density j0 in A/cm^2 (finite, > 0), short-circuit current density jsc in A/cm^2
-// (finite, >= 0) and ideality factor ideality (finite, > 0; 1 for an ideal diode) at
-// temperature t in K:
+// (finite, >= 0) and ideality factor ideality (finite, > 0; 1 for an ideal diode) in
+// material m, at m's temperature:
 //
 //	Voc = n_id (kT/q) ln(1 + Jsc/J0),
 //
-// computed with log1p so that small Jsc/J0 keeps full accuracy. It returns an error for
-// invalid arguments or an infinite result (Jsc/J0 overflowing).
-func IdealDiodeVoc(j0, jsc, ideality, t float64) (float64, error) {
-	if err := checkPos("IdealDiodeVoc", "saturation current density j0", j0, "A/cm^2"); err != nil {
+// computed with log1p so that small Jsc/J0 keeps full accuracy. A junction cannot separate
+// its quasi-Fermi levels by more than the band gap, so a Voc at or above m.Eg() (Jsc/J0 absurdly
+// large) is an error, not a number. It returns an error for a nil m or invalid arguments.
+func IdealDiodeVoc(j0, jsc, ideality float64, m *silicon.Material) (float64, error) {
+	if m == nil {
+		return 0, fmt.Errorf("cell: IdealDiodeVoc: material m is nil")
+	}
+	if err := check.Positive("cell: IdealDiodeVoc", "saturation current density j0", j0, "A/cm^2"); err != nil {
 		return 0, err
 	}
-	if math.IsNaN(jsc) || math.IsInf(jsc, 0) || jsc < 0 {
-		return 0, fmt.Errorf("cell: IdealDiodeVoc: short-circuit current density jsc must be finite and >= 0 A/cm^2, got %g", jsc)
-	}
-	if err := checkPos("IdealDiodeVoc", "ideality factor", ideality, ""); err != nil {
+	if err := check.NonNegative("cell: IdealDiodeVoc", "short-circuit current density jsc", jsc, "A/cm^2"); err != nil {
 		return 0, err
 	}
-	vt, err := thermalVoltage("IdealDiodeVoc", t)
-	if err != nil {
+	if err := check.Positive("cell: IdealDiodeVoc", "ideality factor", ideality, ""); err != nil {
 		return 0, err
 	}
-	v := ideality * vt * math.Log1p(jsc/j0)
-	if math.IsInf(v, 0) {
-		return 0, fmt.Errorf("cell: IdealDiodeVoc: Jsc/J0 = %g/%g overflows", jsc, j0)
+	v := ideality * m.Vt() * math.Log1p(jsc/j0)
+	if !(v < m.Eg()) {
+		return 0, fmt.Errorf("cell: IdealDiodeVoc: Jsc/J0 = %g/%g A/cm^2 gives Voc = %g V, not below the band gap %.4g eV: no junction reaches it",
+			jsc, j0, v, m.Eg())
 	}
 	return v, nil
 }
 
 // J0FromVoc returns the saturation current density J0 in A/cm^2 of an ideal diode with
-// open-circuit voltage voc in V (finite, > 0), short-circuit current density jsc in A/cm^2
-// (finite, > 0) and ideality factor ideality (finite, > 0) at temperature t in K, the
-// inverse of IdealDiodeVoc:
+// open-circuit voltage voc in V (finite, 0 < voc < m.Eg()), short-circuit current density
+// jsc in A/cm^2 (finite, > 0) and ideality factor ideality (finite, > 0) in material m, at
+// m's temperature, the inverse of IdealDiodeVoc:
 //
 //	J0 = Jsc / (exp(q Voc/(n_id kT)) − 1),
 //
-// computed with expm1. It returns an error for invalid arguments or a J0 that underflows to 0.
-func J0FromVoc(voc, jsc, ideality, t float64) (float64, error) {
-	if err := checkPos("J0FromVoc", "open-circuit voltage voc", voc, "V"); err != nil {
+// computed with expm1. It returns an error for a nil m, invalid arguments or a J0 that
+// underflows to 0.
+func J0FromVoc(voc, jsc, ideality float64, m *silicon.Material) (float64, error) {
+	if m == nil {
+		return 0, fmt.Errorf("cell: J0FromVoc: material m is nil")
+	}
+	if err := check.Positive("cell: J0FromVoc", "open-circuit voltage voc", voc, "V"); err != nil {
 		return 0, err
 	}
-	if err := checkPos("J0FromVoc", "short-circuit current density jsc", jsc, "A/cm^2"); err != nil {
+	if !(voc < m.Eg()) {
+		return 0, fmt.Errorf("cell: J0FromVoc: open-circuit voltage voc = %g V must be below the band gap %.4g eV", voc, m.Eg())
+	}
+	if err := check.Positive("cell: J0FromVoc", "short-circuit current density jsc", jsc, "A/cm^2"); err != nil {
 		return 0, err
 	}
-	if err := checkPos("J0FromVoc", "ideality factor", ideality, ""); err != nil {
+	if err := check.Positive("cell: J0FromVoc", "ideality factor", ideality, ""); err != nil {
 		return 0, err
 	}
-	vt, err := thermalVoltage("J0FromVoc", t)
-	if err != nil {
-		return 0, err
-	}
-	j0 := jsc / math.Expm1(voc/(ideality*vt))
+	j0 := jsc / math.Expm1(voc/(ideality*m.Vt()))
 	if !(j0 > 0) {
-		return 0, fmt.Errorf("cell: J0FromVoc: J0 underflows for voc = %g V, ideality %g at T = %g K", voc, ideality, t)
+		return 0, fmt.Errorf("cell: J0FromVoc: J0 underflows for voc = %g V, ideality %g at T = %g K", voc, ideality, m.T())
 	}
 	return j0, nil
-}
-
-func checkPos(fn, name string, v float64, unit string) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
-		if unit != "" {
-			unit = " " + unit
-		}
-		return fmt.Errorf("cell: %s: %s must be finite and > 0%s, got %g", fn, name, unit, v)
-	}
-	return nil
-}
-
-func thermalVoltage(fn string, t float64) (float64, error) {
-	vt, err := silicon.ThermalVoltage(t)
-	if err != nil {
-		return 0, fmt.Errorf("cell: %s: temperature T must be finite and > 0 K, got %g", fn, t)
-	}
-	return vt, nil
 }

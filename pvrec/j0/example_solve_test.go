@@ -7,6 +7,7 @@ import (
 	"github.com/pvrec/pvrec/pvrec/j0"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/sweep"
 )
 
 // The J0 of a phosphorus emitter (erfc, 1e20 cm^-3 at the surface, L = 0.36 µm) on a
@@ -61,16 +62,16 @@ func ExampleSolver_Transparent() {
 	// Gummel 12.52 <= Solve 15.51 <= Transparent 15.58 fA/cm²
 }
 
-// A sweep of the surface concentration of an emitter, solved on all cores, with the results
+// A sweep (package sweep) of the surface concentration of an emitter, solved on all cores, with the results
 // in input order.
-func ExampleSweep() {
+func Example_sweep() {
 	models, err := j0.DefaultModels(300)
 	if err != nil {
 		log.Fatal(err)
 	}
 	s := j0.NewSolver(models)
 	ns := []float64{1e19, 3e19, 1e20, 3e20}
-	res, errs := j0.Sweep(len(ns), 0, func(i int) (j0.Result, error) {
+	res, errs := sweep.Run(len(ns), 0, func(i int) (j0.Result, error) {
 		return s.Solve(j0.Region{
 			Profile: profile.Sum{
 				profile.Erfc{Dopant: silicon.Donor, Surface: ns[i], Length: 0.2e-4},

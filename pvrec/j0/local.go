@@ -37,7 +37,7 @@ type evaluator struct {
 	m     Models
 	p     profile.Profile
 	maj   silicon.Dopant
-	mech  [nMech]recomb.BulkRecombination
+	mech  [nMech]recomb.Mechanism
 	state recomb.State // template with the material's constants
 	evals int          // number of local evaluations (for the Result)
 }
@@ -46,7 +46,7 @@ func newEvaluator(m Models, p profile.Profile, maj silicon.Dopant) *evaluator {
 	mat := m.Material
 	return &evaluator{
 		m: m, p: p, maj: maj,
-		mech:  [nMech]recomb.BulkRecombination{m.Auger, m.SRH, m.Radiative},
+		mech:  [nMech]recomb.Mechanism{m.Auger, m.SRH, m.Radiative},
 		state: recomb.State{T: mat.T(), Vt: mat.Vt(), Nc: mat.Nc(), Nv: mat.Nv(), Ni: mat.Ni()},
 	}
 }
@@ -55,7 +55,7 @@ func newEvaluator(m Models, p profile.Profile, maj silicon.Dopant) *evaluator {
 //
 // Low injection: the majority carriers stay at their equilibrium density n_maj0 and the
 // minority density is n_min0 (1 + u), so that n p − ni,eff² = n0 p0 u exactly. Every bulk
-// mechanism is proportional to n p − ni,eff² (recomb.BulkRecombination) with a coefficient
+// mechanism is proportional to n p − ni,eff² (recomb.Mechanism) with a coefficient
 // evaluated at the carrier densities; in the limit of low injection these are n0 and p0.
 // The coefficient c = R/u is therefore the mechanism's rate at the equilibrium state with
 // Excess set to n0 p0 (u = 1) and Δn = 0.

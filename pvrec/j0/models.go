@@ -15,11 +15,11 @@ import (
 // compare with hand calculations. A nil mechanism is switched off. Models is safe for
 // concurrent use when its models are (all pvrec models are values).
 type Models struct {
-	Material  *silicon.Material        // material at its temperature (required)
-	Mobility  silicon.Mobility         // carrier mobilities (minority carrier's used); nil: the material's ModelSet.Mobility
-	Auger     recomb.BulkRecombination // Auger recombination, e.g. recomb.Richter2012; nil: none
-	SRH       recomb.BulkRecombination // Shockley–Read–Hall recombination, e.g. recomb.SRH; nil: none
-	Radiative recomb.BulkRecombination // radiative recombination, e.g. recomb.Trupke2003; nil: none
+	Material  *silicon.Material // material at its temperature (required)
+	Mobility  silicon.Mobility  // carrier mobilities (minority carrier's used); nil: the material's ModelSet.Mobility
+	Auger     recomb.Mechanism  // Auger recombination, e.g. recomb.Richter2012; nil: none
+	SRH       recomb.Mechanism  // Shockley–Read–Hall recombination, e.g. recomb.SRH; nil: none
+	Radiative recomb.Mechanism  // radiative recombination, e.g. recomb.Trupke2003; nil: none
 }
 
 // DefaultModels returns the default models at temperature t in K: silicon.DefaultModelSet

@@ -10,10 +10,6 @@ import (
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
-// RelPermittivity is the relative permittivity of silicon used for space-charge regions,
-// silicon.RelativePermittivity (11.9, Sze & Ng 2007).
-const RelPermittivity = silicon.RelativePermittivity
-
 // eps0 is the vacuum permittivity in F/cm.
 const eps0 = silicon.VacuumPermittivity
 
@@ -39,7 +35,7 @@ type SpaceCharge struct {
 //	∫_xn^xj |N| dx = ∫_xj^xp |N| dx = Q,
 //	(q/ε) [∫_xn^xj (xj − x)|N| dx + ∫_xj^xp (x − xj)|N| dx] = Vbi = Vt ln(|N(xn)| |N(xp)| / ni²),
 //
-// with ε = RelPermittivity·ε0 and ni = m.Ni(): the built-in voltage of Boltzmann statistics
+// with ε = silicon.RelativePermittivity·ε0 and ni = m.Ni(): the built-in voltage of Boltzmann statistics
 // without band-gap narrowing at the edges (our simplification; the edges lie at moderate
 // doping, and the width depends on Vbi only through its square or cube root). The cumulative
 // charge and moment are tabulated on geometric grids on both sides of xj (ratio 2, from
@@ -87,7 +83,7 @@ func spaceCharge(p profile.Profile, m *silicon.Material, xj float64) (SpaceCharg
 		return SpaceCharge{}, err
 	}
 	vt, ni := m.Vt(), m.Ni()
-	qe := silicon.ElementaryCharge / (RelPermittivity * eps0) // V·cm per (cm^-2 · cm) of charge moment
+	qe := silicon.ElementaryCharge / (silicon.RelativePermittivity * eps0) // V·cm per (cm^-2 · cm) of charge moment
 	f := func(q float64) float64 {
 		_, mn, nn, ok1 := front.at(q)
 		_, mp, np, ok2 := back.at(q)

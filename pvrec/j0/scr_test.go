@@ -41,7 +41,7 @@ func (g gradedJunction) Extent() float64 { return 3 * g.xj }
 // The tabulation resolves the step to 1e-6 xj, so the tolerance is 1e-4.
 func TestSpaceChargeAbrupt(t *testing.T) {
 	m := mustModels(t, SimpleModels).Material
-	eps := RelPermittivity * eps0
+	eps := silicon.RelativePermittivity * eps0
 	q := silicon.ElementaryCharge
 	for _, tc := range []struct{ nd, na, xj float64 }{
 		{1e18, 1e16, 1e-4}, {1e17, 1e17, 0.5e-4}, {1e16, 1e15, 3e-4}, {1e19, 1e18, 0.2e-4},
@@ -69,7 +69,7 @@ func TestSpaceChargeAbrupt(t *testing.T) {
 // interpolation is exact for a linear profile, so the tolerance is 1e-6.
 func TestSpaceChargeGraded(t *testing.T) {
 	m := mustModels(t, SimpleModels).Material
-	eps := RelPermittivity * eps0
+	eps := silicon.RelativePermittivity * eps0
 	q := silicon.ElementaryCharge
 	for _, a := range []float64{1e20, 1e22, 1e24} {
 		g := gradedJunction{a: a, xj: 2e-4}

@@ -1,17 +1,12 @@
 package j0
 
 import (
-	"errors"
-	"fmt"
 	"testing"
-
-	"github.com/pvrec/pvrec/pvrec/profile"
-	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
-// TestSweepDeterministic checks that Sweep and SolveAll return the sequential results, bit
+// TestSolveAllDeterministic checks that SolveAll returns the sequential results, bit
 // for bit, in input order, for any number of workers, and report each error at its index.
-func TestSweepDeterministic(t *testing.T) {
+func TestSolveAllDeterministic(t *testing.T) {
 	s := NewSolver(mustModels(t, SimpleModels))
 	var regions []Region
 	for i := 0; i < 40; i++ {
@@ -38,22 +33,4 @@ func TestSweepDeterministic(t *testing.T) {
 			}
 		}
 	}
-	out, errs := Sweep(5, 2, func(i int) (int, error) { return i * i, nil })
-	if errs != nil || fmt.Sprint(out) != "[0 1 4 9 16]" {
-		t.Errorf("Sweep = %v, %v", out, errs)
-	}
-	_, errs = Sweep(3, 0, func(i int) (int, error) {
-		if i == 1 {
-			return 0, errors.New("boom")
-		}
-		return i, nil
-	})
-	if errs == nil || errs[0] != nil || errs[1] == nil || errs[2] != nil {
-		t.Errorf("Sweep errors = %v", errs)
-	}
-	if out, errs := Sweep(0, 0, func(int) (int, error) { return 0, nil }); out != nil || errs != nil {
-		t.Errorf("empty Sweep = %v, %v", out, errs)
-	}
-	_ = silicon.Donor
-	_ = profile.Sum{}
 }

@@ -1,6 +1,8 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+
 	"fmt"
 )
 
@@ -61,14 +63,14 @@ func (m Amphoteric) Fractions(s State) (fp, f0, fm float64, err error) {
 // fractions returns the charge-state fractions and the SRH densities n1 of both levels, which
 // Rate needs too (so that the levels are evaluated once per call).
 func (m Amphoteric) fractions(s State) (fp, f0, fm, n11, n12 float64, err error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, 0, 0, 0, 0, err
 	}
 	for _, t := range [...]struct {
 		name string
 		v    float64
 	}{{"TauN1", m.TauN1}, {"TauP1", m.TauP1}, {"TauN2", m.TauN2}, {"TauP2", m.TauP2}} {
-		if err := checkPositive("Amphoteric", t.name, t.v, "s"); err != nil {
+		if err := check.Positive("recomb: Amphoteric", t.name, t.v, "s"); err != nil {
 			return 0, 0, 0, 0, 0, err
 		}
 	}

@@ -104,7 +104,7 @@ func TestAmphotericPositiveAndBadInput(t *testing.T) {
 	}
 }
 
-func mustRate(t *testing.T, m BulkRecombination, s State) float64 {
+func mustRate(t *testing.T, m Mechanism, s State) float64 {
 	t.Helper()
 	r, err := m.Rate(s)
 	if err != nil {

@@ -1,6 +1,8 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+
 	"fmt"
 	"math"
 )
@@ -59,13 +61,13 @@ func (Richter2012) String() string { return "Richter2012" }
 // Rate returns the net Auger rate in cm^-3 s^-1 at s (see Richter2012), or an error for an
 // invalid state or parameters or T outside [TMin, TMax].
 func (m Richter2012) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
 	if err := m.validate(); err != nil {
 		return 0, err
 	}
-	if err := checkWindow("Richter2012", s.T, m.TMin, m.TMax); err != nil {
+	if err := check.Window("recomb", "Richter2012", s.T, m.TMin, m.TMax); err != nil {
 		return 0, err
 	}
 	geeh := 1 + m.Geeh*(1-math.Tanh(powPos(s.N0/m.N0eeh, m.Eeeh)))
@@ -126,18 +128,18 @@ func (KerrCuevas2002) String() string { return "KerrCuevas2002" }
 // Rate returns the net Auger rate in cm^-3 s^-1 at s (see KerrCuevas2002), or an error for an
 // invalid state or parameters or T outside [TMin, TMax].
 func (m KerrCuevas2002) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
 	for _, f := range [...]struct {
 		name string
 		v    float64
 	}{{"Cn", m.Cn}, {"En", m.En}, {"Cp", m.Cp}, {"Ep", m.Ep}, {"Ca", m.Ca}, {"Ea", m.Ea}} {
-		if err := checkNonNegative("KerrCuevas2002", "parameter "+f.name, f.v, ""); err != nil {
+		if err := check.NonNegative("recomb: KerrCuevas2002 parameter", f.name, f.v, ""); err != nil {
 			return 0, err
 		}
 	}
-	if err := checkWindow("KerrCuevas2002", s.T, m.TMin, m.TMax); err != nil {
+	if err := check.Window("recomb", "KerrCuevas2002", s.T, m.TMin, m.TMax); err != nil {
 		return 0, err
 	}
 	c := m.Cn*powPos(s.N0, m.En) + m.Cp*powPos(s.P0, m.Ep) + m.Ca*powPos(s.Dn, m.Ea)
@@ -185,14 +187,14 @@ func (Altermatt1997) String() string { return "Altermatt1997" }
 // Rate returns the net Auger rate in cm^-3 s^-1 at s (see Altermatt1997), or an error for an
 // invalid state or parameters, T outside [TMin, TMax] or Δn above the low-injection limit.
 func (m Altermatt1997) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
 	for _, f := range [...]struct {
 		name string
 		v    float64
 	}{{"Cn", m.Cn}, {"Cp", m.Cp}, {"Geeh", m.Geeh}, {"Gehh", m.Gehh}, {"MaxInjection", m.MaxInjection}} {
-		if err := checkNonNegative("Altermatt1997", "parameter "+f.name, f.v, ""); err != nil {
+		if err := check.NonNegative("recomb: Altermatt1997 parameter", f.name, f.v, ""); err != nil {
 			return 0, err
 		}
 	}
@@ -200,16 +202,18 @@ func (m Altermatt1997) Rate(s State) (float64, error) {
 		name string
 		v    float64
 	}{{"N0eeh", m.N0eeh}, {"Eeeh", m.Eeeh}, {"N0ehh", m.N0ehh}, {"Eehh", m.Eehh}} {
-		if err := checkPositive("Altermatt1997", "parameter "+f.name, f.v, ""); err != nil {
+		if err := check.Positive("recomb: Altermatt1997 parameter", f.name, f.v, ""); err != nil {
 			return 0, err
 		}
 	}
-	if err := checkWindow("Altermatt1997", s.T, m.TMin, m.TMax); err != nil {
+	if err := check.Window("recomb", "Altermatt1997", s.T, m.TMin, m.TMax); err != nil {
 		return 0, err
 	}
 	if s.Dn > m.MaxInjection*(s.N0+s.P0) {
-		return 0, outOfRange("recomb: Altermatt1997: excess density Δn = %g cm^-3 above the low-injection limit %g·(n0 + p0) = %g cm^-3",
-			s.Dn, m.MaxInjection, m.MaxInjection*(s.N0+s.P0))
+		lim := m.MaxInjection * (s.N0 + s.P0)
+		return 0, check.Rangef("Altermatt1997", "excess density Δn", s.Dn, 0, lim,
+			"recomb: Altermatt1997: excess density Δn = %g cm^-3 above the low-injection limit %g·(n0 + p0) = %g cm^-3",
+			s.Dn, m.MaxInjection, lim)
 	}
 	geeh := 1 + m.Geeh*(1-math.Tanh(powPos(s.N0/m.N0eeh, m.Eeeh)))
 	gehh := 1 + m.Gehh*(1-math.Tanh(powPos(s.P0/m.N0ehh, m.Eehh)))
@@ -262,14 +266,14 @@ func (m ConstantAuger) Rate(s State) (float64, error) {
 }
 
 func constantAuger(model string, cn, cp float64, s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
-	if err := checkNonNegative(model, "Cn", cn, "cm⁶/s"); err != nil {
-		return 0, err
-	}
-	if err := checkNonNegative(model, "Cp", cp, "cm⁶/s"); err != nil {
-		return 0, err
+	if !(cn >= 0 && cp >= 0) || math.IsInf(cn+cp, 0) { // names are built on the error path only
+		if err := check.NonNegative("recomb: "+model, "Cn", cn, "cm⁶/s"); err != nil {
+			return 0, err
+		}
+		return 0, check.NonNegative("recomb: "+model, "Cp", cp, "cm⁶/s")
 	}
 	return (cn*s.N + cp*s.P) * s.Excess, nil
 }

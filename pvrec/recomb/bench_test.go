@@ -24,7 +24,7 @@ func BenchmarkIntrinsicLifetimeCurve(b *testing.B) {
 	for i := range dn {
 		dn[i] = math.Pow(10, 12+6*float64(i)/float64(len(dn)-1))
 	}
-	var in BulkRecombination = NewIntrinsic() // boxed once, as a caller holding a model set would
+	var in Mechanism = NewIntrinsic() // boxed once, as a caller holding a model set would
 	out := make([]float64, len(dn))
 	b.ReportAllocs()
 	for b.Loop() {

@@ -5,35 +5,26 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
-// Material is what the bulk mechanisms need from the material model set at one temperature.
-// *silicon.Material, returned by silicon.ModelSet.At, satisfies it; tests may supply a fake.
-//
-// NiEff takes ionised dopant densities, as silicon.Material.NiEff documents; Equilibrium takes
-// dopant densities and reports the ionised ones.
-type Material interface {
-	T() float64  // temperature, K
-	Vt() float64 // thermal voltage kT/q, V
-	Nc() float64 // conduction-band effective density of states, cm^-3
-	Nv() float64 // valence-band effective density of states, cm^-3
-	Ni() float64 // intrinsic density without narrowing, cm^-3
-	// NiEff returns ni,eff in cm^-3 at free-carrier densities n, p and ionised dopant
-	// densities nd, na (cm^-3).
-	NiEff(n, p, nd, na float64) (float64, error)
-	// Equilibrium returns the thermal-equilibrium state for dopant densities nd, na (cm^-3).
-	Equilibrium(nd, na float64) (silicon.Equilibrium, error)
-}
+// MaxExcess is the largest excess carrier density, in cm^-3, of a Bulk's states: far above
+// any injection a silicon device reaches (the top of the range over which pvrec is tested;
+// common practice, no source). Bulk.State returns a range error above it, and the inversions
+// of the lifetime and cell packages search no higher.
+const MaxExcess = 1e21
 
-var _ Material = (*silicon.Material)(nil)
+var errZeroBulk = errors.New("recomb: Bulk is not initialised (build it with NewBulk)")
 
-// Bulk is uniformly doped silicon at one temperature: a Material, its dopant densities and its
-// thermal equilibrium, computed once by NewBulk. Its State method gives the carrier state at
-// an excess carrier density Δn, at which every BulkRecombination is evaluated. A Bulk is
-// immutable and safe for concurrent use if its Material is (as *silicon.Material is).
+// Bulk is uniformly doped silicon at one temperature: a material, its dopant densities and
+// its thermal equilibrium, computed once by NewBulk. It is the one description of a wafer in
+// pvrec: its State method gives the quasi-neutral carrier state at an excess carrier density
+// Δn, at which every Mechanism (package recomb) and every surface model (package surface) is
+// evaluated, and which the lifetime and cell packages build on. A Bulk is immutable and safe
+// for concurrent use. The zero Bulk is not usable: its methods return an error.
 type Bulk struct {
-	mat    Material
+	mat    *silicon.Material
 	nd, na float64             // dopant densities, cm^-3
 	eq     silicon.Equilibrium // thermal equilibrium
 	nie0   float64             // mat.NiEff at equilibrium, the reference of injection-dependent ni,eff
@@ -43,14 +34,14 @@ type Bulk struct {
 // NewBulk returns the Bulk of material m with donor density nd and acceptor density na in
 // cm^-3 (finite, >= 0; compensation allowed). It returns an error for a nil m, invalid
 // densities, or an error of the material's equilibrium solver (wrapped).
-func NewBulk(m Material, nd, na float64) (*Bulk, error) {
+func NewBulk(m *silicon.Material, nd, na float64) (*Bulk, error) {
 	if m == nil {
 		return nil, fmt.Errorf("recomb: NewBulk: material m is nil")
 	}
-	if err := checkDensity("donor density nd", nd); err != nil {
+	if err := check.Density("recomb: NewBulk", "donor density nd", nd); err != nil {
 		return nil, err
 	}
-	if err := checkDensity("acceptor density na", na); err != nil {
+	if err := check.Density("recomb: NewBulk", "acceptor density na", na); err != nil {
 		return nil, err
 	}
 	eq, err := m.Equilibrium(nd, na)
@@ -68,17 +59,33 @@ func NewBulk(m Material, nd, na float64) (*Bulk, error) {
 	return &Bulk{mat: m, nd: nd, na: na, eq: eq, nie0: nie0, n0p0: n0p0}, nil
 }
 
-// Material returns the material of b.
-func (b *Bulk) Material() Material { return b.mat }
+// Material returns the material of b (nil for the zero Bulk).
+func (b *Bulk) Material() *silicon.Material {
+	if b == nil {
+		return nil
+	}
+	return b.mat
+}
 
-// Dopants returns the donor and acceptor densities of b in cm^-3, as given to NewBulk.
-func (b *Bulk) Dopants() (nd, na float64) { return b.nd, b.na }
+// Dopants returns the donor and acceptor densities of b in cm^-3, as given to NewBulk (0, 0
+// for the zero Bulk).
+func (b *Bulk) Dopants() (nd, na float64) {
+	if b == nil {
+		return 0, 0
+	}
+	return b.nd, b.na
+}
 
-// Equilibrium returns the thermal-equilibrium state of b.
-func (b *Bulk) Equilibrium() silicon.Equilibrium { return b.eq }
+// Equilibrium returns the thermal-equilibrium state of b (the zero value for the zero Bulk).
+func (b *Bulk) Equilibrium() silicon.Equilibrium {
+	if b == nil {
+		return silicon.Equilibrium{}
+	}
+	return b.eq
+}
 
 // State returns the carrier state of b at excess carrier density dn = Δn in cm^-3 (finite,
-// >= 0) in quasi-neutrality: n = n0 + Δn, p = p0 + Δn, with ni,eff evaluated by the material
+// 0 <= dn <= MaxExcess) in quasi-neutrality: n = n0 + Δn, p = p0 + Δn, with ni,eff evaluated by the material
 // at (n, p), so that injection-dependent band-gap narrowing (Schenk's) and carrier degeneracy
 // enter.
 //
@@ -96,8 +103,14 @@ func (b *Bulk) Equilibrium() silicon.Equilibrium { return b.eq }
 //
 // It returns an error for invalid dn, an error of the material (wrapped) or a non-finite state.
 func (b *Bulk) State(dn float64) (State, error) {
-	if err := checkDensity("excess carrier density Δn", dn); err != nil {
+	if b == nil || b.mat == nil {
+		return State{}, errZeroBulk
+	}
+	if err := check.Density("recomb: State", "excess carrier density Δn", dn); err != nil {
 		return State{}, err
+	}
+	if dn > MaxExcess {
+		return State{}, check.Range("recomb", "Bulk.State", "excess carrier density Δn", "cm^-3", dn, 0, MaxExcess)
 	}
 	eq := b.eq
 	n, p := eq.N0+dn, eq.P0+dn
@@ -123,7 +136,7 @@ func (b *Bulk) State(dn float64) (State, error) {
 
 // Lifetime returns the lifetime τ = Δn/R in s of mechanism m in b at excess carrier density
 // dn in cm^-3 (finite, > 0). See the package function Lifetime for special cases.
-func (b *Bulk) Lifetime(m BulkRecombination, dn float64) (float64, error) {
+func (b *Bulk) Lifetime(m Mechanism, dn float64) (float64, error) {
 	s, err := b.State(dn)
 	if err != nil {
 		return 0, err
@@ -133,7 +146,7 @@ func (b *Bulk) Lifetime(m BulkRecombination, dn float64) (float64, error) {
 
 // Lifetimes returns the lifetimes τ = Δn/R in s of mechanism m in b at each excess carrier
 // density of dn (cm^-3, each finite and > 0), in a new slice. It stops at the first error.
-func (b *Bulk) Lifetimes(m BulkRecombination, dn []float64) ([]float64, error) {
+func (b *Bulk) Lifetimes(m Mechanism, dn []float64) ([]float64, error) {
 	out := make([]float64, len(dn))
 	for i, d := range dn {
 		tau, err := b.Lifetime(m, d)
@@ -143,90 +156,4 @@ func (b *Bulk) Lifetimes(m BulkRecombination, dn []float64) ([]float64, error) {
 		out[i] = tau
 	}
 	return out, nil
-}
-
-// State is the local carrier state at which a BulkRecombination is evaluated. Bulk.State
-// fills it consistently; a hand-made State must satisfy N = N0 + Dn, P = P0 + Dn and
-// Excess = N·P − NiEff² (the mechanisms use Excess as given, which is how detailed balance
-// is guaranteed). Densities are in cm^-3.
-type State struct {
-	T      float64 // temperature, K
-	Vt     float64 // thermal voltage kT/q, V
-	Nc, Nv float64 // effective densities of states, cm^-3
-	Ni     float64 // intrinsic density without narrowing, cm^-3
-	NdIon  float64 // ionised donor density, cm^-3
-	NaIon  float64 // ionised acceptor density, cm^-3
-	N0, P0 float64 // thermal-equilibrium electron and hole densities, cm^-3
-	Dn     float64 // excess carrier density Δn, cm^-3
-	N, P   float64 // electron and hole densities, cm^-3
-	NiEff  float64 // effective intrinsic density at (N, P), cm^-3
-	Excess float64 // N·P − NiEff², cm^-6, computed without cancellation (see Bulk.State)
-}
-
-// check returns an error naming the first field of s, among those every mechanism uses, that
-// is NaN, infinite or out of range.
-func (s State) check() error {
-	if math.IsNaN(s.T) || math.IsInf(s.T, 0) || s.T <= 0 {
-		return fmt.Errorf("recomb: State temperature T must be finite and > 0 K, got %g", s.T)
-	}
-	for _, f := range [...]struct {
-		name string
-		v    float64
-	}{{"N0", s.N0}, {"P0", s.P0}, {"Dn", s.Dn}, {"N", s.N}, {"P", s.P}} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) || f.v < 0 {
-			return fmt.Errorf("recomb: State density %s must be finite and >= 0 cm^-3, got %g", f.name, f.v)
-		}
-	}
-	if math.IsNaN(s.Excess) || math.IsInf(s.Excess, 0) {
-		return fmt.Errorf("recomb: State Excess (n p − ni,eff²) must be finite, got %g", s.Excess)
-	}
-	return nil
-}
-
-// checkDensity returns an error unless v is a finite, non-negative density in cm^-3.
-func checkDensity(name string, v float64) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
-		return fmt.Errorf("recomb: %s must be finite and >= 0 cm^-3, got %g", name, v)
-	}
-	return nil
-}
-
-// checkPositive returns an error unless v is finite and > 0.
-func checkPositive(what, name string, v float64, unit string) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v <= 0 {
-		return fmt.Errorf("recomb: %s: %s must be finite and > 0 %s, got %g", what, name, unit, v)
-	}
-	return nil
-}
-
-// checkNonNegative returns an error unless v is finite and >= 0.
-func checkNonNegative(what, name string, v float64, unit string) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
-		return fmt.Errorf("recomb: %s: %s must be finite and >= 0 %s, got %g", what, name, unit, v)
-	}
-	return nil
-}
-
-// ErrOutOfRange is reported (through errors.Is) by every error of this package for an
-// argument outside a model's validity range, as opposed to an argument that is invalid for any
-// model (NaN, infinite, negative density, T <= 0).
-var ErrOutOfRange = errors.New("recomb: argument outside the model's validity range")
-
-// rangeError is an error outside a validity range; errors.Is(err, ErrOutOfRange) is true.
-type rangeError struct{ msg string }
-
-func (e *rangeError) Error() string        { return e.msg }
-func (e *rangeError) Is(target error) bool { return target == ErrOutOfRange }
-
-// outOfRange returns a rangeError with a formatted message (which must start with "recomb: ").
-func outOfRange(format string, a ...any) error {
-	return &rangeError{msg: fmt.Sprintf(format, a...)}
-}
-
-// checkWindow returns an error unless tmin <= t <= tmax (the model's temperature window).
-func checkWindow(model string, t, tmin, tmax float64) error {
-	if !(t >= tmin && t <= tmax) {
-		return outOfRange("recomb: %s: temperature T = %g K outside the model's window [%g, %g] K", model, t, tmin, tmax)
-	}
-	return nil
 }

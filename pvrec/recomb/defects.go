@@ -1,13 +1,16 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/silicon"
+
 	"fmt"
 	"math"
 )
 
 // The defect catalogue: well-characterised recombination-active levels with their published
 // parameters. Each function returns an SRHDefect with density nt in cm^-3 and the thermal
-// velocities of NewGreen1990ThermalVelocity.
+// velocities of silicon.NewGreen1990ThermalVelocity.
 
 // InterstitialIron returns the donor level of interstitial iron Fe_i in silicon at density nt:
 // Et = Ev + 0.38 eV, σn = 5.0e-14 cm², σp = 7.0e-17 cm², the set compiled by D. Macdonald,
@@ -18,7 +21,7 @@ import (
 // sections should be checked against the paper before quantitative use).
 func InterstitialIron(nt float64) SRHDefect {
 	return SRHDefect{Name: "Fe_i", Level: AboveEv(0.38), SigmaN: 5.0e-14, SigmaP: 7.0e-17, Nt: nt,
-		VTh: NewGreen1990ThermalVelocity()}
+		VTh: silicon.NewGreen1990ThermalVelocity()}
 }
 
 // IronBoronPair returns the acceptor level of the iron–boron pair FeB in boron-doped silicon
@@ -28,7 +31,7 @@ func InterstitialIron(nt float64) SRHDefect {
 // recombination and is left out.
 func IronBoronPair(nt float64) SRHDefect {
 	return SRHDefect{Name: "FeB", Level: BelowEc(0.26), SigmaN: 5.0e-15, SigmaP: 3.0e-15, Nt: nt,
-		VTh: NewGreen1990ThermalVelocity()}
+		VTh: silicon.NewGreen1990ThermalVelocity()}
 }
 
 // IronBoron is the iron–boron dissociation method of measuring the iron concentration in
@@ -117,10 +120,10 @@ func (m IronBoron) Prefactor(b *Bulk, dn float64) (float64, error) {
 // lifetimes that are not finite and > 0, for the errors of Prefactor, and for a lifetime
 // change of the wrong sign for dissociation at this Δn (which would give [Fe] < 0).
 func (m IronBoron) Concentration(b *Bulk, dn, tauBefore, tauAfter float64) (float64, error) {
-	if err := checkPositive("IronBoron", "lifetime tauBefore", tauBefore, "s"); err != nil {
+	if err := check.Positive("recomb: IronBoron", "lifetime tauBefore", tauBefore, "s"); err != nil {
 		return 0, err
 	}
-	if err := checkPositive("IronBoron", "lifetime tauAfter", tauAfter, "s"); err != nil {
+	if err := check.Positive("recomb: IronBoron", "lifetime tauAfter", tauAfter, "s"); err != nil {
 		return 0, err
 	}
 	c, err := m.Prefactor(b, dn)
@@ -150,7 +153,8 @@ func (m IronBoron) Crossover(b *Bulk) (float64, error) {
 		return 0, err
 	}
 	if (flo > 0) == (fhi > 0) {
-		return 0, outOfRange("recomb: IronBoron: no crossover between Δn = 1e8 and 1e19 cm^-3")
+		return 0, check.Rangef("IronBoron", "crossover Δn", math.NaN(), 1e8, 1e19,
+			"recomb: IronBoron: no crossover between Δn = 1e8 and 1e19 cm^-3")
 	}
 	for i := 0; i < 200 && hi-lo > 1e-13; i++ {
 		mid := 0.5 * (lo + hi)

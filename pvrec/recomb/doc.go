@@ -3,12 +3,15 @@
 // lifetime), a small defect catalogue with the iron–boron dissociation method, and diffusion
 // lengths.
 //
-// Every mechanism is a value implementing BulkRecombination, a one-method interface
-// evaluated at a State: the carrier state of a Bulk (a Material, its dopants and its thermal
-// equilibrium) at an excess carrier density Δn. All rates are proportional to
-// n p − ni,eff², which Bulk.State computes without cancellation near equilibrium, so detailed
-// balance (R = 0 at n p = ni,eff²) holds exactly. Pass *silicon.Material from
-// silicon.ModelSet.At as the Material, so that band-gap narrowing and degeneracy enter ni,eff.
+// Every mechanism is a value implementing Mechanism, a one-method interface evaluated at a
+// State: the quasi-neutral carrier state of a Bulk (a *silicon.Material from
+// silicon.ModelSet.At, its dopants and its thermal equilibrium) at an excess carrier density
+// Δn. Bulk and State are the one wafer description of pvrec: the surface models, lifetime
+// samples and cells are evaluated at the same State. All rates are proportional to
+// n p − ni,eff², which Bulk.State computes without cancellation near equilibrium (the one
+// implementation of that product), so detailed balance (R = 0 at n p = ni,eff²) holds exactly;
+// State.ImpliedVoc gives the quasi-Fermi-level separation. Range errors match
+// pvrec.ErrOutOfRange.
 //
 // Models and sources:
 //
@@ -25,7 +28,7 @@
 //     W. Gerlach, Phys. Status Solidi A 21, 357 (1974), in NewKerrCuevas2002Intrinsic).
 //   - SRH and SRHDefect (Shockley–Read–Hall, one level): W. Shockley and W. T. Read,
 //     Phys. Rev. 87, 835 (1952); R. N. Hall, Phys. Rev. 87, 387 (1952); thermal velocities
-//     at 300 K of M. A. Green, J. Appl. Phys. 67, 2944 (1990).
+//     (silicon.ThermalVelocity) at 300 K of M. A. Green, J. Appl. Phys. 67, 2944 (1990).
 //   - Amphoteric (three charge states, two levels, steady state): C. T. Sah and
 //     W. Shockley, Phys. Rev. 109, 1103 (1958).
 //   - InterstitialIron, IronBoronPair and IronBoron: D. Macdonald, L. J. Geerligs and

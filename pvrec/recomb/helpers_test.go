@@ -8,38 +8,22 @@ import (
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
-// fixedMaterial is a test material with Boltzmann statistics, no band-gap narrowing and
-// constant ni, Nc, Nv, Eg, so that every rate has a closed form (testdata/reference/recomb.py uses
-// the same numbers). ni = 1e10 cm^-3 is a round value (common practice, no source);
-// Nc = 2.86e19 and Nv = 3.10e19 cm^-3 at 300 K are those of M. A. Green, J. Appl. Phys. 67,
-// 2944 (1990) (value from memory).
-type fixedMaterial struct {
-	t, ni, nc, nv float64
-}
-
-func newFixed() fixedMaterial {
-	return fixedMaterial{t: 300, ni: 1e10, nc: 2.86e19, nv: 3.10e19}
-}
-
-func (m fixedMaterial) T() float64  { return m.t }
-func (m fixedMaterial) Vt() float64 { return silicon.BoltzmannEV * m.t }
-func (m fixedMaterial) Nc() float64 { return m.nc }
-func (m fixedMaterial) Nv() float64 { return m.nv }
-func (m fixedMaterial) Ni() float64 { return m.ni }
-func (m fixedMaterial) NiEff(n, p, nd, na float64) (float64, error) {
-	return m.ni, nil
-}
-func (m fixedMaterial) Equilibrium(nd, na float64) (silicon.Equilibrium, error) {
-	net := nd - na
-	var n0, p0 float64
-	if net >= 0 {
-		n0 = net/2 + math.Hypot(net/2, m.ni)
-		p0 = m.ni * (m.ni / n0)
-	} else {
-		p0 = -net/2 + math.Hypot(net/2, m.ni)
-		n0 = m.ni * (m.ni / p0)
+// newFixed returns the test material with Boltzmann statistics, no band-gap narrowing,
+// complete ionisation and constant ni = 1e10 cm^-3 at 300 K, so that every rate has a closed
+// form (testdata/reference/recomb.py uses the same numbers). ni = 1e10 cm^-3 is a round value
+// (common practice, no source); Nc = 2.86e19 and Nv = 3.10e19 cm^-3 at 300 K are those of the
+// Green1990 densities of states, M. A. Green, J. Appl. Phys. 67, 2944 (1990) (value from
+// memory).
+func newFixed() *silicon.Material {
+	ms := silicon.DefaultModelSet()
+	ms.Statistics = silicon.Boltzmann
+	ms.Intrinsic = silicon.NewFixedNi()
+	ms.BGN = silicon.NoNarrowing{}
+	m, err := ms.At(300)
+	if err != nil {
+		panic(err) // the default model set at 300 K is valid: a failure here is a bug
 	}
-	return silicon.Equilibrium{N0: n0, P0: p0, NdIon: nd, NaIon: na, NiEff: math.Sqrt(n0) * math.Sqrt(p0)}, nil
+	return m
 }
 
 // defaultMaterial returns silicon's default model set at 300 K (Schenk1998 BGN, Fermi–Dirac).
@@ -56,7 +40,7 @@ func mustDefault(t testing.TB) *silicon.Material {
 	return m
 }
 
-func mustBulk(t testing.TB, m Material, nd, na float64) *Bulk {
+func mustBulk(t testing.TB, m *silicon.Material, nd, na float64) *Bulk {
 	t.Helper()
 	b, err := NewBulk(m, nd, na)
 	if err != nil {
@@ -76,8 +60,8 @@ func mustState(t testing.TB, b *Bulk, dn float64) State {
 
 // allMechanisms returns one instance of every mechanism of the package, each valid at 300 K
 // and (except Altermatt1997) at any injection.
-func allMechanisms() []BulkRecombination {
-	return []BulkRecombination{
+func allMechanisms() []Mechanism {
+	return []Mechanism{
 		NewTrupke2003(),
 		Trupke2003{BLow: 4.73e-15, EscapeFraction: 0.3, TMin: 290, TMax: 310},
 		ConstantRadiative{B: 9.5e-15, EscapeFraction: 1},
@@ -90,7 +74,7 @@ func allMechanisms() []BulkRecombination {
 		SRH{Level: BelowEc(0.26), TauN0: 1e-5, TauP0: 3e-5},
 		InterstitialIron(1e11),
 		IronBoronPair(1e11),
-		SRHDefect{Level: FromEi(-0.1), SigmaN: 1e-15, SigmaP: 1e-16, Nt: 1e12, VTh: NewGreen1990ThermalVelocity()},
+		SRHDefect{Level: FromEi(-0.1), SigmaN: 1e-15, SigmaP: 1e-16, Nt: 1e12, VTh: silicon.NewGreen1990ThermalVelocity()},
 		NewIntrinsic(),
 		NewKerrCuevas2002Intrinsic(),
 		Sum{NewIntrinsic(), InterstitialIron(1e10), SRH{Level: FromEi(0), TauN0: 1e-3, TauP0: 1e-3}},

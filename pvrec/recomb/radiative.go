@@ -1,6 +1,8 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+
 	"fmt"
 	"math"
 	"strings"
@@ -68,16 +70,16 @@ func (m Trupke2003) String() string {
 // Rate returns the net radiative rate in cm^-3 s^-1 at s (see Trupke2003). It returns an
 // error for an invalid state or parameters, an error of Rel, or T outside [TMin, TMax].
 func (m Trupke2003) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
-	if err := checkPositive("Trupke2003", "BLow", m.BLow, "cm³/s"); err != nil {
+	if err := check.Positive("recomb: Trupke2003", "BLow", m.BLow, "cm³/s"); err != nil {
 		return 0, err
 	}
 	if err := checkEscape("Trupke2003", m.EscapeFraction); err != nil {
 		return 0, err
 	}
-	if err := checkWindow("Trupke2003", s.T, m.TMin, m.TMax); err != nil {
+	if err := check.Window("recomb", "Trupke2003", s.T, m.TMin, m.TMax); err != nil {
 		return 0, err
 	}
 	b := m.BLow * m.EscapeFraction
@@ -114,10 +116,10 @@ func (m ConstantRadiative) String() string {
 // Rate returns f_esc B (n p − ni,eff²) in cm^-3 s^-1, or an error for an invalid state or
 // parameters.
 func (m ConstantRadiative) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
-	if err := checkPositive("ConstantRadiative", "B", m.B, "cm³/s"); err != nil {
+	if err := check.Positive("recomb: ConstantRadiative", "B", m.B, "cm³/s"); err != nil {
 		return 0, err
 	}
 	if err := checkEscape("ConstantRadiative", m.EscapeFraction); err != nil {

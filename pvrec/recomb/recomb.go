@@ -1,12 +1,14 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+
 	"fmt"
 	"math"
 	"strings"
 )
 
-// BulkRecombination is a bulk recombination mechanism. Rate returns the net recombination
+// Mechanism is a bulk recombination mechanism. Rate returns the net recombination
 // rate R in cm^-3 s^-1 at the carrier state s in the form R = s.Excess · c(s), where
 // s.Excess = n p − ni,eff² and the coefficient c depends on the other fields of s but not on
 // Excess. So R vanishes in thermal equilibrium (detailed balance), is positive under
@@ -15,7 +17,7 @@ import (
 // The lifetime of the mechanism is Δn/R (see Lifetime). Implementations are values, safe for
 // concurrent use, and return an error for an invalid state, invalid parameters or a state
 // outside their validity range.
-type BulkRecombination interface {
+type Mechanism interface {
 	Rate(s State) (float64, error)
 }
 
@@ -23,7 +25,7 @@ type BulkRecombination interface {
 // It returns +Inf if R = 0 (a mechanism that is switched off, such as a defect density of
 // zero), and an error for s.Dn <= 0 (the lifetime at Δn = 0 is a limit, not a ratio), an
 // error of m, or a negative or non-finite R.
-func Lifetime(m BulkRecombination, s State) (float64, error) {
+func Lifetime(m Mechanism, s State) (float64, error) {
 	if m == nil {
 		return 0, fmt.Errorf("recomb: Lifetime: mechanism m is nil")
 	}
@@ -44,9 +46,9 @@ func Lifetime(m BulkRecombination, s State) (float64, error) {
 	return s.Dn / r, nil
 }
 
-// Sum is the sum of independent mechanisms, itself a BulkRecombination: the effective bulk
+// Sum is the sum of independent mechanisms, itself a Mechanism: the effective bulk
 // lifetime 1/τ = Σ 1/τ_i is Lifetime(Sum{...}, s). An empty Sum has rate 0.
-type Sum []BulkRecombination
+type Sum []Mechanism
 
 // Rate returns the sum of the rates of the mechanisms in cm^-3 s^-1, or the first error.
 func (m Sum) Rate(s State) (float64, error) {
@@ -80,8 +82,8 @@ func (m Sum) String() string {
 // (2012): Richter2012 Auger with the radiative coefficient B_low of Trupke2003 (without the
 // relative coefficient B_rel, see Trupke2003).
 type Intrinsic struct {
-	Auger     BulkRecombination // Auger mechanism, e.g. Richter2012
-	Radiative BulkRecombination // radiative mechanism, e.g. Trupke2003
+	Auger     Mechanism // Auger mechanism, e.g. Richter2012
+	Radiative Mechanism // radiative mechanism, e.g. Trupke2003
 }
 
 // NewIntrinsic returns Intrinsic{Auger: NewRichter2012(), Radiative: NewTrupke2003()}.
@@ -137,7 +139,7 @@ func DiffusionLength(tau, d float64) (float64, error) {
 	if math.IsNaN(tau) || tau <= 0 {
 		return 0, fmt.Errorf("recomb: DiffusionLength: lifetime tau must be > 0 s, got %g", tau)
 	}
-	if err := checkPositive("DiffusionLength", "diffusivity d", d, "cm²/s"); err != nil {
+	if err := check.Positive("recomb: DiffusionLength", "diffusivity d", d, "cm²/s"); err != nil {
 		return 0, err
 	}
 	return math.Sqrt(d * tau), nil

@@ -6,7 +6,9 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // TestDetailedBalance checks that every mechanism has zero net rate in thermal equilibrium,
@@ -103,7 +105,7 @@ func TestLowInjectionLimitDefault(t *testing.T) {
 // weak injection dependence of ni,eff through Schenk's BGN).
 func TestGridFinitePositive(t *testing.T) {
 	m := mustDefault(t)
-	mechs := []BulkRecombination{
+	mechs := []Mechanism{
 		NewIntrinsic(),
 		NewKerrCuevas2002Intrinsic(),
 		Sum{NewIntrinsic(), InterstitialIron(1e12), SRH{Level: FromEi(0), TauN0: 1e-3, TauP0: 1e-3}},
@@ -146,7 +148,7 @@ func TestReferenceRates(t *testing.T) {
 	n := 0
 	for _, r := range reftable.Load(t, "recomb").Rows {
 		nd, na, dn, want := num(r[1]), num(r[2]), num(r[3]), num(r[5])
-		var mech BulkRecombination
+		var mech Mechanism
 		switch r[0] {
 		case "Richter2012":
 			mech = NewRichter2012()
@@ -260,7 +262,7 @@ func TestRichterLimits(t *testing.T) {
 func TestSRHLimits(t *testing.T) {
 	const tn, tp = 1e-3, 7e-3
 	m := SRH{Level: FromEi(0), TauN0: tn, TauP0: tp}
-	for _, mat := range []Material{newFixed(), mustDefault(t)} {
+	for _, mat := range []*silicon.Material{newFixed(), mustDefault(t)} {
 		for _, tc := range []struct {
 			nd, na, dn float64
 			want, tol  float64
@@ -287,7 +289,7 @@ func TestSRHLimits(t *testing.T) {
 // 1952).
 func TestSRHDefectTaus(t *testing.T) {
 	d := InterstitialIron(1e12)
-	tn, tp, err := d.Taus(300)
+	tn, tp, err := d.Taus(mustDefault(t))
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -306,10 +308,14 @@ func TestSRHDefectTaus(t *testing.T) {
 			t.Errorf("Δn=%g: SRHDefect R = %g, SRH R = %g", dn, r1, r2)
 		}
 	}
-	// At 600 K the velocities scale by sqrt(2) (constant effective mass; common practice).
-	ve, vh, _ := NewGreen1990ThermalVelocity().At(600)
-	if relErr(ve, 2.046e7*math.Sqrt2) > 1e-15 || relErr(vh, 1.688e7*math.Sqrt2) > 1e-15 {
-		t.Errorf("vth(600 K) = %g, %g", ve, vh)
+	// At 450 K the velocities scale by sqrt(1.5) (constant effective mass; common practice).
+	ve, vh, _ := silicon.NewGreen1990ThermalVelocity().At(450)
+	if relErr(ve, 2.046e7*math.Sqrt(1.5)) > 1e-15 || relErr(vh, 1.688e7*math.Sqrt(1.5)) > 1e-15 {
+		t.Errorf("vth(450 K) = %g, %g", ve, vh)
+	}
+	// Outside the stated window the scaling is not offered (pvrec.ErrOutOfRange).
+	if _, _, err := silicon.NewGreen1990ThermalVelocity().At(600); !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("vth(600 K): err = %v, want ErrOutOfRange", err)
 	}
 }
 
@@ -318,7 +324,7 @@ func TestSRHDefectTaus(t *testing.T) {
 // (Shockley and Read 1952), and that a level counted from Ei equals the same level counted
 // from Ev (Ei − Ev = kT ln(Nv/ni) for Boltzmann statistics, textbook relation).
 func TestLevelDensities(t *testing.T) {
-	for _, mat := range []Material{newFixed(), mustDefault(t)} {
+	for _, mat := range []*silicon.Material{newFixed(), mustDefault(t)} {
 		s := mustState(t, mustBulk(t, mat, 0, 1e19), 1e15)
 		for _, l := range []Level{AboveEv(0.38), BelowEc(0.26), FromEi(0), FromEi(-0.3), AboveEv(0), BelowEc(0)} {
 			n1, p1, err := l.n1p1(s)
@@ -452,7 +458,7 @@ func TestDiffusionLength(t *testing.T) {
 }
 
 // TestBadInput checks that invalid input gives an error starting with "recomb:" that names the
-// argument (house rule 5), and errors.Is(err, ErrOutOfRange) where the input is valid but out
+// argument (house rule 5), and errors.Is(err, pvrec.ErrOutOfRange) where the input is valid but out
 // of a model's range.
 func TestBadInput(t *testing.T) {
 	mat := mustDefault(t)
@@ -467,7 +473,7 @@ func TestBadInput(t *testing.T) {
 		name  string
 		call  func() error
 		want  string // substring of the message
-		rangE bool   // errors.Is(err, ErrOutOfRange)
+		rangE bool   // errors.Is(err, pvrec.ErrOutOfRange)
 	}{
 		{"nil material", func() error { _, err := NewBulk(nil, 0, 1e16); return err }, "material m", false},
 		{"NaN nd", func() error { _, err := NewBulk(mat, nan, 1e16); return err }, "donor density nd", false},
@@ -500,7 +506,7 @@ func TestBadInput(t *testing.T) {
 		{"negative Nt", func() error { _, err := InterstitialIron(-1).Rate(s); return err }, "Nt", false},
 		{"unset VTh", func() error {
 			d := InterstitialIron(1e12)
-			d.VTh = ThermalVelocity{}
+			d.VTh = silicon.ThermalVelocity{}
 			_, err := d.Rate(s)
 			return err
 		}, "Electron300", false},
@@ -534,8 +540,8 @@ func TestBadInput(t *testing.T) {
 		if !strings.HasPrefix(msg, "recomb: ") || !strings.Contains(msg, tc.want) {
 			t.Errorf("%s: error %q, want prefix \"recomb: \" and %q", tc.name, msg, tc.want)
 		}
-		if errors.Is(err, ErrOutOfRange) != tc.rangE {
-			t.Errorf("%s: errors.Is(err, ErrOutOfRange) = %v, want %v", tc.name, !tc.rangE, tc.rangE)
+		if errors.Is(err, pvrec.ErrOutOfRange) != tc.rangE {
+			t.Errorf("%s: errors.Is(err, pvrec.ErrOutOfRange) = %v, want %v", tc.name, !tc.rangE, tc.rangE)
 		}
 	}
 }
@@ -565,7 +571,7 @@ func TestStrings(t *testing.T) {
 		{IronBoronPair(1e12), "FeB(1e+12 cm^-3)"},
 		{SRHDefect{Level: FromEi(-0.1), SigmaN: 1e-15, SigmaP: 1e-16, Nt: 1e12}, "SRHDefect(Ei−0.1 eV, σn=1e-15, σp=1e-16 cm², Nt=1e+12 cm^-3)"},
 		{NewIronBoron(), "IronBoron(Fe_i, FeB)"},
-		{NewGreen1990ThermalVelocity(), "vth(2.046e+07, 1.688e+07 cm/s at 300 K)"},
+		{silicon.NewGreen1990ThermalVelocity(), "vth(2.046e+07, 1.688e+07 cm/s at 300 K)"},
 	} {
 		if got := tc.m.(interface{ String() string }).String(); got != tc.want {
 			t.Errorf("String() = %q, want %q", got, tc.want)

@@ -1,6 +1,9 @@
 package recomb
 
 import (
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/silicon"
+
 	"fmt"
 	"math"
 )
@@ -90,7 +93,8 @@ func (l Level) n1p1(s State) (n1, p1 float64, err error) {
 		return 0, 0, fmt.Errorf("recomb: defect level %v: reference Ref not set (use AboveEv, BelowEc or FromEi)", l)
 	}
 	if !(etv >= 0 && etv <= eg) {
-		return 0, 0, outOfRange("recomb: defect level %v lies outside the gap (Et − Ev = %g eV, Ec − Ev = %g eV)", l, etv, eg)
+		return 0, 0, check.Rangef("SRH", "defect level Et − Ev", etv, 0, eg,
+			"recomb: defect level %v lies outside the gap (Et − Ev = %g eV, Ec − Ev = %g eV)", l, etv, eg)
 	}
 	shift := s.NiEff / s.Ni
 	switch l.Ref {
@@ -134,13 +138,13 @@ func (m SRH) String() string {
 // Rate returns the net SRH rate in cm^-3 s^-1 at s (see SRH), or an error for an invalid state,
 // a level outside the gap or capture time constants that are not finite and > 0.
 func (m SRH) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
-	if err := checkPositive("SRH", "TauN0", m.TauN0, "s"); err != nil {
+	if err := check.Positive("recomb: SRH", "TauN0", m.TauN0, "s"); err != nil {
 		return 0, err
 	}
-	if err := checkPositive("SRH", "TauP0", m.TauP0, "s"); err != nil {
+	if err := check.Positive("recomb: SRH", "TauP0", m.TauP0, "s"); err != nil {
 		return 0, err
 	}
 	n1, p1, err := m.Level.n1p1(s)
@@ -150,47 +154,6 @@ func (m SRH) Rate(s State) (float64, error) {
 	return s.Excess / (m.TauP0*(s.N+n1) + m.TauN0*(s.P+p1)), nil
 }
 
-// ThermalVelocity gives the mean thermal velocities of electrons and holes,
-//
-//	vth(T) = vth(300 K) · sqrt(T / 300 K),
-//
-// the temperature dependence of a constant effective mass (common practice, no source).
-// NewGreen1990ThermalVelocity returns the 300 K values of M. A. Green, "Intrinsic
-// concentration, effective densities of states, and effective mass in silicon", J. Appl.
-// Phys. 67, 2944 (1990): 2.046e7 cm/s for electrons and 1.688e7 cm/s for holes (value from
-// memory). Green also tabulates the temperature dependence of the thermal-velocity effective
-// masses; it is not reproduced here, so away from 300 K the values are approximate.
-type ThermalVelocity struct {
-	Electron300 float64 // electron thermal velocity at 300 K, cm/s
-	Hole300     float64 // hole thermal velocity at 300 K, cm/s
-}
-
-// NewGreen1990ThermalVelocity returns ThermalVelocity{Electron300: 2.046e7, Hole300: 1.688e7}.
-func NewGreen1990ThermalVelocity() ThermalVelocity {
-	return ThermalVelocity{Electron300: 2.046e7, Hole300: 1.688e7}
-}
-
-// String returns "vth(2.046e+07, 1.688e+07 cm/s at 300 K)" with the model's values.
-func (v ThermalVelocity) String() string {
-	return fmt.Sprintf("vth(%g, %g cm/s at 300 K)", v.Electron300, v.Hole300)
-}
-
-// At returns the electron and hole thermal velocities in cm/s at temperature t in K, or an
-// error for invalid t or velocities that are not finite and > 0.
-func (v ThermalVelocity) At(t float64) (ve, vh float64, err error) {
-	if err := checkPositive("ThermalVelocity", "temperature T", t, "K"); err != nil {
-		return 0, 0, err
-	}
-	if err := checkPositive("ThermalVelocity", "Electron300 (unset? use NewGreen1990ThermalVelocity)", v.Electron300, "cm/s"); err != nil {
-		return 0, 0, err
-	}
-	if err := checkPositive("ThermalVelocity", "Hole300 (unset? use NewGreen1990ThermalVelocity)", v.Hole300, "cm/s"); err != nil {
-		return 0, 0, err
-	}
-	f := math.Sqrt(t / 300)
-	return v.Electron300 * f, v.Hole300 * f, nil
-}
-
 // SRHDefect is Shockley–Read–Hall recombination through a single defect level given by its
 // energy, capture cross sections and density (see SRH for the rate):
 //
@@ -198,12 +161,12 @@ func (v ThermalVelocity) At(t float64) (ve, vh float64, err error) {
 //
 // with the thermal velocities at the state's temperature. Nt = 0 gives R = 0.
 type SRHDefect struct {
-	Name   string          // optional label used by String, e.g. "Fe_i"
-	Level  Level           // defect level
-	SigmaN float64         // electron capture cross section σn, cm², finite and > 0
-	SigmaP float64         // hole capture cross section σp, cm², finite and > 0
-	Nt     float64         // defect density, cm^-3, finite and >= 0
-	VTh    ThermalVelocity // thermal velocities
+	Name   string                  // optional label used by String, e.g. "Fe_i"
+	Level  Level                   // defect level
+	SigmaN float64                 // electron capture cross section σn, cm², finite and > 0
+	SigmaP float64                 // hole capture cross section σp, cm², finite and > 0
+	Nt     float64                 // defect density, cm^-3, finite and >= 0
+	VTh    silicon.ThermalVelocity // thermal velocities of electrons and holes
 }
 
 // WithDensity returns a copy of d with defect density nt in cm^-3.
@@ -221,34 +184,43 @@ func (d SRHDefect) String() string {
 	return fmt.Sprintf("SRHDefect(%v, σn=%g, σp=%g cm², Nt=%g cm^-3)", d.Level, d.SigmaN, d.SigmaP, d.Nt)
 }
 
-// Taus returns the capture time constants τn0, τp0 in s at temperature t in K (+Inf for
-// Nt = 0), or an error for invalid parameters or t.
-func (d SRHDefect) Taus(t float64) (tauN0, tauP0 float64, err error) {
+// Taus returns the capture time constants τn0, τp0 in s of d in material m, at m's
+// temperature (+Inf for Nt = 0), or an error for a nil m, invalid parameters or a temperature
+// outside the thermal-velocity window.
+func (d SRHDefect) Taus(m *silicon.Material) (tauN0, tauP0 float64, err error) {
+	if m == nil {
+		return 0, 0, fmt.Errorf("recomb: SRHDefect.Taus: material m is nil")
+	}
 	if err := d.validate(); err != nil {
 		return 0, 0, err
 	}
-	ve, vh, err := d.VTh.At(t)
+	ve, vh, err := d.VTh.At(m.T())
 	if err != nil {
-		return 0, 0, err
+		return 0, 0, fmt.Errorf("recomb: SRHDefect %v: %w", d, err)
 	}
 	return 1 / (d.SigmaN * ve * d.Nt), 1 / (d.SigmaP * vh * d.Nt), nil
 }
 
+// validate checks the parameters of d. It formats d's name only on the error path, so that
+// Rate stays allocation-free.
 func (d SRHDefect) validate() error {
-	what := "SRHDefect " + d.String()
-	if err := checkPositive(what, "electron cross section SigmaN", d.SigmaN, "cm²"); err != nil {
+	if d.SigmaN > 0 && d.SigmaP > 0 && d.Nt >= 0 && !math.IsInf(d.SigmaN+d.SigmaP+d.Nt, 0) {
+		return nil
+	}
+	what := "recomb: SRHDefect " + d.String()
+	if err := check.Positive(what, "electron cross section SigmaN", d.SigmaN, "cm²"); err != nil {
 		return err
 	}
-	if err := checkPositive(what, "hole cross section SigmaP", d.SigmaP, "cm²"); err != nil {
+	if err := check.Positive(what, "hole cross section SigmaP", d.SigmaP, "cm²"); err != nil {
 		return err
 	}
-	return checkDensity(what+": defect density Nt", d.Nt)
+	return check.Density(what, "defect density Nt", d.Nt)
 }
 
 // Rate returns the net SRH rate in cm^-3 s^-1 at s, or an error for an invalid state or
 // parameters or a level outside the gap.
 func (d SRHDefect) Rate(s State) (float64, error) {
-	if err := s.check(); err != nil {
+	if err := s.Validate(); err != nil {
 		return 0, err
 	}
 	if err := d.validate(); err != nil {
@@ -256,7 +228,7 @@ func (d SRHDefect) Rate(s State) (float64, error) {
 	}
 	ve, vh, err := d.VTh.At(s.T)
 	if err != nil {
-		return 0, err
+		return 0, fmt.Errorf("recomb: SRHDefect %v: %w", d, err)
 	}
 	n1, p1, err := d.Level.n1p1(s)
 	if err != nil {

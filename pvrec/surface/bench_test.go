@@ -44,7 +44,7 @@ func BenchmarkSolve(b *testing.B) {
 // BenchmarkCurve100 is a 100-point Seff(Δn) curve, 1e12–1e17 cm^-3, including the bulk
 // states (equilibrium and ni,eff of the default material).
 func BenchmarkCurve100(b *testing.B) {
-	mat := defaultMaterial(b)
+	w := mustWafer(b, defaultMaterial(b), 0, 1e16)
 	dn := logspace(12, 17, 100)
 	for _, charged := range []bool{false, true} {
 		name := "neutral"
@@ -54,7 +54,7 @@ func BenchmarkCurve100(b *testing.B) {
 		b.Run(name, func(b *testing.B) {
 			m := benchModel(charged)
 			for b.Loop() {
-				if _, err := m.Curve(mat, 0, 1e16, dn); err != nil {
+				if _, err := m.Curve(w, dn); err != nil {
 					b.Fatal(err)
 				}
 			}
@@ -94,9 +94,9 @@ func BenchmarkMapQfDit40x40(b *testing.B) {
 	}
 }
 
-func BenchmarkSurfaceLifetime(b *testing.B) {
+func BenchmarkLifetime(b *testing.B) {
 	for b.Loop() {
-		if _, err := SurfaceLifetime(0.018, 30, 25, 3); err != nil {
+		if _, err := Lifetime(0.018, 30, 25, 3); err != nil {
 			b.Fatal(err)
 		}
 	}

@@ -4,13 +4,15 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec/recomb"
 )
 
 // totalDit integrates a distribution over the gap of b with the production quadrature.
-func totalDit(t *testing.T, d DitDistribution, b Bulk) float64 {
+func totalDit(t *testing.T, d DitDistribution, s recomb.State) float64 {
 	t.Helper()
 	m := NewExtendedSRH(d, ConstantSigma(1e-16), ConstantSigma(1e-16), 0)
-	nodes, err := m.grid(b, maxPanelKT, glOrder)
+	nodes, err := m.grid(s, 1e7, 1e7, maxPanelKT, glOrder)
 	if err != nil {
 		t.Fatal(err)
 	}

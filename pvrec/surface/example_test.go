@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"log"
 
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 	"github.com/pvrec/pvrec/pvrec/surface"
 )
@@ -17,7 +18,11 @@ func ExampleExtendedSRH_Solve() {
 	}
 	dit := surface.UShapedDit{Mid: 5e10, TailC: 5e12, TailV: 5e12, Ec: 0.56, Ev: -0.56, WidthC: 0.1, WidthV: 0.1}
 	m := surface.NewExtendedSRH(dit, surface.ConstantSigma(1e-15), surface.ConstantSigma(1e-16), -2e12)
-	b, err := surface.NewBulk(si, 0, 1e16, 1e15)
+	wafer, err := recomb.NewBulk(si, 0, 1e16) // the wafer: 1e16 cm^-3 p-type
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := wafer.State(1e15) // its quasi-neutral state at Δn = 1e15 cm^-3
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -42,12 +47,16 @@ func ExampleExtendedSRH_Curve() {
 	}
 	m := surface.NewExtendedSRH(surface.ConstantDit{D: 5e10}, surface.ConstantSigma(1e-15), surface.ConstantSigma(1e-16), -2e12)
 	m.ChargedStates = true
-	rs, err := m.Curve(si, 0, 1e16, []float64{1e13, 1e15, 1e17})
+	wafer, err := recomb.NewBulk(si, 0, 1e16)
+	if err != nil {
+		log.Fatal(err)
+	}
+	rs, err := m.Curve(wafer, []float64{1e13, 1e15, 1e17})
 	if err != nil {
 		log.Fatal(err)
 	}
 	for _, r := range rs {
-		fmt.Printf("Δn = %.0e cm^-3: Seff = %.2g cm/s, J0s = %.2g fA/cm^2\n", r.Bulk.Dn, r.Seff, 1e15*r.J0s)
+		fmt.Printf("Δn = %.0e cm^-3: Seff = %.2g cm/s, J0s = %.2g fA/cm^2\n", r.State.Dn, r.Seff, 1e15*r.J0s)
 	}
 	// Output:
 	// Δn = 1e+13 cm^-3: Seff = 0.44 cm/s, J0s = 0.77 fA/cm^2
@@ -61,7 +70,11 @@ func ExampleSeffFromJ0s() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	b, err := surface.NewBulk(si, 0, 1e16, 1e15) // 1e16 cm^-3 p-type, Δn = 1e15 cm^-3
+	wafer, err := recomb.NewBulk(si, 0, 1e16) // 1e16 cm^-3 p-type
+	if err != nil {
+		log.Fatal(err)
+	}
+	b, err := wafer.State(1e15) // Δn = 1e15 cm^-3
 	if err != nil {
 		log.Fatal(err)
 	}
@@ -85,19 +98,19 @@ func ExampleEffectiveLifetime() {
 	if err != nil {
 		log.Fatal(err)
 	}
-	ts, _ := surface.SurfaceLifetime(w, d, 5, 20)
-	low, _ := surface.SurfaceLifetimeLowS(w, 5, 20)
+	ts, _ := surface.Lifetime(w, d, 5, 20)
+	low, _ := surface.LifetimeLowS(w, 5, 20)
 	fmt.Printf("τeff = %.3f ms, τs = %.3f ms (low-S limit W/(S1+S2) = %.3f ms)\n", 1e3*tau, 1e3*ts, 1e3*low)
 	// Output:
 	// τeff = 0.530 ms, τs = 0.722 ms (low-S limit W/(S1+S2) = 0.720 ms)
 }
 
 // Sproul's approximation against the exact fundamental mode for a symmetric wafer.
-func ExampleSurfaceLifetimeSproul() {
+func ExampleLifetimeSproul() {
 	const w, d = 180e-4, 30.0
 	for _, s := range []float64{10, 1e3, 1e5} {
-		ex, _ := surface.SurfaceLifetime(w, d, s, s)
-		ap, _ := surface.SurfaceLifetimeSproul(w, d, s)
+		ex, _ := surface.Lifetime(w, d, s, s)
+		ap, _ := surface.LifetimeSproul(w, d, s)
 		fmt.Printf("S = %6.0f cm/s: exact %.4g s, Sproul %.4g s\n", s, ex, ap)
 	}
 	// Output:

@@ -5,6 +5,8 @@ import (
 	"math"
 	"sort"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -50,7 +52,7 @@ const (
 //
 // integrated from the valence- to the conduction-band edge. With quasi-Fermi levels flat
 // across the space-charge region (Boltzmann statistics), ns = n exp(y), ps = p exp(−y), where
-// n, p are the densities at its edge (Bulk) and y = ψs/Vt the band bending (> 0: bands bend
+// n, p are the densities at its edge (the recomb.State) and y = ψs/Vt the band bending (> 0: bands bend
 // down, electrons are attracted), so ns ps = n p. The band bending follows from charge
 // neutrality, Qf + Qit(y) + Qs(y) = 0 (all in elementary charges per cm²), with the exact
 // one-dimensional Poisson solution for the space charge (e.g. S. M. Sze and K. K. Ng, Physics
@@ -71,7 +73,7 @@ const (
 // across it (its value at the injected bulk state); complete ionisation there.
 //
 // Validity: |Qf| <= MaxFixedCharge, Nd, Na <= MaxDopant, 0 < Δn <= MaxExcess, either wafer
-// polarity; the solver is a bracketed one and returns an error (ErrNoConvergence) rather
+// polarity; the solver is a bracketed one and returns an error (check.ErrNoConvergence) rather
 // than an inaccurate result. The fields are the user's: no parameters of a particular
 // dielectric are implied by the model's authors. ExtendedSRH is a value and safe for
 // concurrent use (provided its distributions are not mutated meanwhile).
@@ -80,9 +82,12 @@ type ExtendedSRH struct {
 	SigmaN CrossSection    // electron capture cross section versus E − Ei, cm^2
 	SigmaP CrossSection    // hole capture cross section versus E − Ei, cm^2
 	Qf     float64         // fixed charge density, elementary charges per cm² (cm^-2), either sign
-	VthN   float64         // electron thermal velocity, cm/s
-	VthP   float64         // hole thermal velocity, cm/s
-	EpsR   float64         // relative permittivity of silicon, dimensionless
+	// Vth gives the electron and hole thermal velocities at the state's temperature, cm/s.
+	// Interface parameters (Dit, σ) are commonly extracted with 1e7 cm/s for both carriers,
+	// which NewExtendedSRH sets (DefaultVth); use the same convention as the source of your
+	// Dit and σ, e.g. silicon.NewGreen1990ThermalVelocity() for the bulk defects' values.
+	Vth  silicon.ThermalVelocity
+	EpsR float64 // relative permittivity of silicon, dimensionless
 	// ChargedStates includes the charge of the interface states, Qit, in charge neutrality.
 	// When false (the default of NewExtendedSRH) the states are taken as neutral, the usual
 	// simplification when |Qf| is much larger than the charge the states can hold.
@@ -95,21 +100,21 @@ type ExtendedSRH struct {
 
 // Defaults of NewExtendedSRH.
 const (
-	// DefaultVth is the thermal velocity used for electrons and holes by NewExtendedSRH,
-	// 1e7 cm/s (common practice, no source).
+	// DefaultVth is the thermal velocity at 300 K used for electrons and holes by
+	// NewExtendedSRH, 1e7 cm/s (common practice, no source); it scales as sqrt(T/300 K) like
+	// every silicon.ThermalVelocity.
 	DefaultVth = 1e7
-	// DefaultEpsR is the relative permittivity of silicon used by NewExtendedSRH,
-	// silicon.RelativePermittivity (11.9, Sze & Ng 2007); set EpsR to compare another value.
-	DefaultEpsR = silicon.RelativePermittivity
 )
 
 // NewExtendedSRH returns the model for interface states dit with capture cross sections
 // sigmaN, sigmaP and fixed charge qf (cm^-2, either sign), with thermal velocities
-// DefaultVth, permittivity DefaultEpsR and neutral interface states (ChargedStates false).
+// DefaultVth at 300 K, the permittivity silicon.RelativePermittivity and neutral interface
+// states (ChargedStates false).
 func NewExtendedSRH(dit DitDistribution, sigmaN, sigmaP CrossSection, qf float64) ExtendedSRH {
 	return ExtendedSRH{
 		Dit: dit, SigmaN: sigmaN, SigmaP: sigmaP, Qf: qf,
-		VthN: DefaultVth, VthP: DefaultVth, EpsR: DefaultEpsR,
+		Vth:  silicon.ThermalVelocity{Electron300: DefaultVth, Hole300: DefaultVth},
+		EpsR: silicon.RelativePermittivity,
 	}
 }
 
@@ -158,55 +163,54 @@ func (r Regime) String() string {
 
 // Result is the solution of ExtendedSRH at one bulk state.
 type Result struct {
-	Bulk     Bulk    // bulk state at the edge of the space-charge region
-	Psi      float64 // band bending ψs (surface potential relative to the bulk), V; > 0: bands bend down
-	Ns, Ps   float64 // electron and hole densities at the surface, cm^-3
-	Qf       float64 // fixed charge, cm^-2 (elementary charges per cm²)
-	Qit      float64 // charge in interface states, cm^-2 (0 unless ChargedStates)
-	Qs       float64 // charge in the silicon space-charge region, cm^-2
-	Residual float64 // charge-neutrality residual Qf + Qit + Qs at the solution, cm^-2
-	Us       float64 // surface recombination rate, cm^-2 s^-1
-	Seff     float64 // effective surface recombination velocity Us/Δn, cm/s
-	J0s      float64 // surface saturation current density, A/cm^2
-	Regime   Regime  // accumulation, depletion, inversion or flat band
+	State    recomb.State // quasi-neutral bulk state at the edge of the space-charge region
+	Psi      float64      // band bending ψs (surface potential relative to the bulk), V; > 0: bands bend down
+	Ns, Ps   float64      // electron and hole densities at the surface, cm^-3
+	Qf       float64      // fixed charge, cm^-2 (elementary charges per cm²)
+	Qit      float64      // charge in interface states, cm^-2 (0 unless ChargedStates)
+	Qs       float64      // charge in the silicon space-charge region, cm^-2
+	Residual float64      // charge-neutrality residual Qf + Qit + Qs at the solution, cm^-2
+	Us       float64      // surface recombination rate, cm^-2 s^-1
+	Seff     float64      // effective surface recombination velocity Us/Δn, cm/s
+	J0s      float64      // surface saturation current density, A/cm^2
+	Regime   Regime       // accumulation, depletion, inversion or flat band
 }
 
 // Solve returns the band bending, surface densities, charges, recombination rate, Seff and
-// J0s of the interface at bulk state b (see the type's doc comment). It returns an error for
-// an invalid model or b, an argument outside the validity range (ErrOutOfRange), or a solve
-// that does not meet its tolerances (ErrNoConvergence).
-func (m ExtendedSRH) Solve(b Bulk) (Result, error) {
-	return m.solve(b, maxPanelKT, glOrder)
+// J0s of the interface at the quasi-neutral bulk state s (see the type's doc comment). It
+// returns an error for an invalid model or s, an argument outside the validity range (ErrOutOfRange), or a solve
+// that does not meet its tolerances (check.ErrNoConvergence).
+func (m ExtendedSRH) Solve(s recomb.State) (Result, error) {
+	return m.solve(s, maxPanelKT, glOrder)
 }
 
-// Seff returns Solve(b).Seff in cm/s, so that ExtendedSRH is a Model.
-func (m ExtendedSRH) Seff(b Bulk) (float64, error) {
-	r, err := m.Solve(b)
+// Seff returns Solve(s).Seff in cm/s, so that ExtendedSRH is a Model.
+func (m ExtendedSRH) Seff(s recomb.State) (float64, error) {
+	r, err := m.Solve(s)
 	if err != nil {
 		return 0, err
 	}
 	return r.Seff, nil
 }
 
-// Curve returns Solve at the bulk states of silicon mat with dopant densities nd, na (cm^-3)
-// and each excess density in dn (cm^-3), e.g. an Seff(Δn) or J0s(Δn) curve. It stops at the
-// first error, naming the Δn.
-func (m ExtendedSRH) Curve(mat *silicon.Material, nd, na float64, dn []float64) ([]Result, error) {
+// Curve returns Solve at the states of wafer b at each excess density in dn (cm^-3), e.g. an
+// Seff(Δn) or J0s(Δn) curve. It stops at the first error, naming the Δn.
+func (m ExtendedSRH) Curve(b *recomb.Bulk, dn []float64) ([]Result, error) {
 	out := make([]Result, len(dn))
 	for i, x := range dn {
-		b, err := NewBulk(mat, nd, na, x)
+		s, err := b.State(x)
 		if err != nil {
-			return nil, err
+			return nil, fmt.Errorf("surface: ExtendedSRH.Curve: %w", err)
 		}
-		if out[i], err = m.Solve(b); err != nil {
+		if out[i], err = m.Solve(s); err != nil {
 			return nil, fmt.Errorf("surface: at Δn = %g cm^-3: %w", x, err)
 		}
 	}
 	return out, nil
 }
 
-// validate checks the model's fields and b against the validity range.
-func (m ExtendedSRH) validate(b Bulk) error {
+// validate checks the model's fields and s against the validity range.
+func (m ExtendedSRH) validate(s recomb.State) error {
 	switch {
 	case m.Dit == nil:
 		return fmt.Errorf("surface: ExtendedSRH.Dit is nil")
@@ -222,35 +226,30 @@ func (m ExtendedSRH) validate(b Bulk) error {
 			}
 		}
 	}
-	if err := checkPos("ExtendedSRH.VthN", "cm/s", m.VthN); err != nil {
+
+	if err := check.Positive("surface", "ExtendedSRH.EpsR", m.EpsR, ""); err != nil {
 		return err
 	}
-	if err := checkPos("ExtendedSRH.VthP", "cm/s", m.VthP); err != nil {
+	if err := check.Finite("surface", "ExtendedSRH.NeutralLevel", m.NeutralLevel, "eV"); err != nil {
 		return err
 	}
-	if err := checkPos("ExtendedSRH.EpsR", "", m.EpsR); err != nil {
-		return err
-	}
-	if err := checkFinite("ExtendedSRH.NeutralLevel", "eV", m.NeutralLevel); err != nil {
-		return err
-	}
-	if err := checkFinite("ExtendedSRH.Qf", "cm^-2", m.Qf); err != nil {
+	if err := check.Finite("surface", "ExtendedSRH.Qf", m.Qf, "cm^-2"); err != nil {
 		return err
 	}
 	if math.Abs(m.Qf) > MaxFixedCharge {
-		return rangeError("ExtendedSRH", "fixed charge Qf", "cm^-2", m.Qf, -MaxFixedCharge, MaxFixedCharge)
+		return check.Range("surface", "ExtendedSRH", "fixed charge Qf", "cm^-2", m.Qf, -MaxFixedCharge, MaxFixedCharge)
 	}
-	if err := b.Validate(); err != nil {
+	if _, err := excess(s); err != nil {
 		return err
 	}
-	if b.Nd > MaxDopant {
-		return rangeError("ExtendedSRH", "donor density Nd", "cm^-3", b.Nd, 0, MaxDopant)
+	if s.NdIon > MaxDopant {
+		return check.Range("surface", "ExtendedSRH", "donor density Nd", "cm^-3", s.NdIon, 0, MaxDopant)
 	}
-	if b.Na > MaxDopant {
-		return rangeError("ExtendedSRH", "acceptor density Na", "cm^-3", b.Na, 0, MaxDopant)
+	if s.NaIon > MaxDopant {
+		return check.Range("surface", "ExtendedSRH", "acceptor density Na", "cm^-3", s.NaIon, 0, MaxDopant)
 	}
-	if b.Dn > MaxExcess {
-		return rangeError("ExtendedSRH", "excess density Δn", "cm^-3", b.Dn, 0, MaxExcess)
+	if s.Dn > MaxExcess {
+		return check.Range("surface", "ExtendedSRH", "excess density Δn", "cm^-3", s.Dn, 0, MaxExcess)
 	}
 	return nil
 }
@@ -275,12 +274,12 @@ type node struct {
 // the 8-point rule then converges like ρ^−16 with ρ ≈ 12.6 (Bernstein ellipse through the
 // nearest pole), below 1e-16 relative; the tests confirm 1e-12 against panels 8 times
 // narrower with 16 points.
-func (m ExtendedSRH) grid(b Bulk, maxPanel float64, order int) ([]node, error) {
-	vt := b.Vt
-	eLo := -vt * math.Log(b.Nv/b.NiEff)
-	eHi := vt * math.Log(b.Nc/b.NiEff)
+func (m ExtendedSRH) grid(s recomb.State, ve, vh, maxPanel float64, order int) ([]node, error) {
+	vt := s.Vt
+	eLo := -vt * math.Log(s.Nv/s.NiEff)
+	eHi := vt * math.Log(s.Nc/s.NiEff)
 	if !(eHi > eLo) {
-		return nil, fmt.Errorf("surface: empty gap: band edges at %g and %g eV from Ei (ni,eff = %g cm^-3 >= Nc or Nv)", eLo, eHi, b.NiEff)
+		return nil, fmt.Errorf("surface: empty gap: band edges at %g and %g eV from Ei (ni,eff = %g cm^-3 >= Nc or Nv)", eLo, eHi, s.NiEff)
 	}
 	breaks := []float64{eLo, eHi}
 	add := func(bs []float64) {
@@ -326,8 +325,8 @@ func (m ExtendedSRH) grid(b Bulk, maxPanel float64, order int) ([]node, error) {
 				}
 				x := math.Exp(e / vt)
 				nodes = append(nodes, node{
-					w: 0.5 * h * rule.w[j] * d, cn: sn * m.VthN, cp: sp * m.VthP,
-					n1: b.NiEff * x, p1: b.NiEff / x, acceptor: e > m.NeutralLevel,
+					w: 0.5 * h * rule.w[j] * d, cn: sn * ve, cp: sp * vh,
+					n1: s.NiEff * x, p1: s.NiEff / x, acceptor: e > m.NeutralLevel,
 				})
 			}
 		}
@@ -376,20 +375,24 @@ func spaceCharge(y, n, p, k2 float64) float64 {
 	return -y * math.Sqrt(k2*(n*phi2(y)+p*phi2(-y)))
 }
 
-func (m ExtendedSRH) solve(b Bulk, maxPanel float64, order int) (Result, error) {
-	if err := m.validate(b); err != nil {
+func (m ExtendedSRH) solve(s recomb.State, maxPanel float64, order int) (Result, error) {
+	if err := m.validate(s); err != nil {
 		return Result{}, err
 	}
-	np, err := b.npExcess()
+	np, err := excess(s)
 	if err != nil {
 		return Result{}, err
 	}
-	nodes, err := m.grid(b, maxPanel, order)
+	ve, vh, err := m.Vth.At(s.T)
+	if err != nil {
+		return Result{}, fmt.Errorf("surface: ExtendedSRH.Vth: %w", err)
+	}
+	nodes, err := m.grid(s, ve, vh, maxPanel, order)
 	if err != nil {
 		return Result{}, err
 	}
-	n, p := b.N(), b.P()
-	k2 := 2 * m.EpsR * silicon.VacuumPermittivity * b.Vt / silicon.ElementaryCharge
+	n, p := s.N, s.P
+	k2 := 2 * m.EpsR * silicon.VacuumPermittivity * s.Vt / silicon.ElementaryCharge
 	surf := func(y float64) (float64, float64) { return n * math.Exp(y), p * math.Exp(-y) }
 	qit := func(y float64) float64 {
 		if !m.ChargedStates {
@@ -415,34 +418,34 @@ func (m ExtendedSRH) solve(b Bulk, maxPanel float64, order int) (Result, error) 
 		for (fhi > 0) == (f0 > 0) && fhi != 0 {
 			if math.Abs(hi) >= maxBend {
 				return Result{}, fmt.Errorf("surface: no band bending within ±%g Vt balances Qf = %g cm^-2 (n = %g, p = %g cm^-3): %w",
-					maxBend, m.Qf, n, p, ErrNoConvergence)
+					maxBend, m.Qf, n, p, check.ErrNoConvergence)
 			}
 			lo, flo = hi, fhi
 			hi = math.Max(-maxBend, math.Min(maxBend, 2*hi))
 			fhi, _ = F(hi)
 		}
 		if y, err = brent(F, lo, hi, flo, fhi, 0, maxSolveIt); err != nil {
-			return Result{}, fmt.Errorf("surface: surface-potential solve at Qf = %g cm^-2, Δn = %g cm^-3: %w", m.Qf, b.Dn, err)
+			return Result{}, fmt.Errorf("surface: surface-potential solve at Qf = %g cm^-2, Δn = %g cm^-3: %w", m.Qf, s.Dn, err)
 		}
 	}
 	ns, ps := surf(y)
 	r := Result{
-		Bulk: b, Psi: y * b.Vt, Ns: ns, Ps: ps,
+		State: s, Psi: y * s.Vt, Ns: ns, Ps: ps,
 		Qf: m.Qf, Qit: qit(y), Qs: spaceCharge(y, n, p, k2),
 	}
 	r.Residual = r.Qf + r.Qit + r.Qs
 	if scale := math.Abs(r.Qf) + math.Abs(r.Qit) + math.Abs(r.Qs); !(math.Abs(r.Residual) <= ResidualTol*scale) {
 		return Result{}, fmt.Errorf("surface: charge-neutrality residual %g cm^-2 exceeds %g of %g cm^-2 at Qf = %g cm^-2, Δn = %g cm^-3: %w",
-			r.Residual, ResidualTol, scale, m.Qf, b.Dn, ErrNoConvergence)
+			r.Residual, ResidualTol, scale, m.Qf, s.Dn, check.ErrNoConvergence)
 	}
 	r.Us = rateUs(nodes, ns, ps, np)
-	r.Seff = r.Us / b.Dn
-	r.J0s = silicon.ElementaryCharge * r.Us * b.NiEff * b.NiEff / np
-	r.Regime = regime(y, ns, ps, b.PType())
+	r.Seff = r.Us / s.Dn
+	r.J0s = silicon.ElementaryCharge * r.Us * s.NiEff * s.NiEff / np
+	r.Regime = regime(y, ns, ps, s.PType())
 	for _, v := range [...]float64{r.Us, r.Seff, r.J0s, r.Ns, r.Ps} {
 		if math.IsNaN(v) || math.IsInf(v, 0) {
 			return Result{}, fmt.Errorf("surface: non-finite result (Us = %g cm^-2 s^-1, ns = %g, ps = %g cm^-3) at Qf = %g cm^-2, Δn = %g cm^-3: %w",
-				r.Us, r.Ns, r.Ps, m.Qf, b.Dn, ErrNoConvergence)
+				r.Us, r.Ns, r.Ps, m.Qf, s.Dn, check.ErrNoConvergence)
 		}
 	}
 	return r, nil

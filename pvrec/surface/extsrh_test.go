@@ -5,7 +5,9 @@ import (
 	"math"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -63,7 +65,7 @@ func TestExtendedSRHReference(t *testing.T) {
 			t.Errorf("%s: %v", row[0], err)
 			continue
 		}
-		got := []float64{r.Psi / r.Bulk.Vt, r.Ns, r.Ps, r.Qit, r.Qs, r.Us, r.Seff, r.J0s}
+		got := []float64{r.Psi / r.State.Vt, r.Ns, r.Ps, r.Qit, r.Qs, r.Us, r.Seff, r.J0s}
 		for i, g := range got {
 			want := reftable.Float(t, row[i+1])
 			tol := 1e-12 * math.Max(1, math.Abs(want)) // y: absolute near 0
@@ -103,11 +105,11 @@ func TestFlatBandDirectIntegral(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if r.Psi != 0 || r.Ns != b.N() || r.Ps != b.P() || r.Regime != FlatBand {
+		if r.Psi != 0 || r.Ns != b.N || r.Ps != b.P || r.Regime != FlatBand {
 			t.Errorf("%+v: ψs = %g V, ns = %g, ps = %g, %v; want flat band", c, r.Psi, r.Ns, r.Ps, r.Regime)
 		}
 		cn, cp := c.sn*DefaultVth, c.sp*DefaultVth
-		A, B, C := cn*b.N()+cp*b.P(), cn*b.NiEff, cp*b.NiEff
+		A, B, C := cn*b.N+cp*b.P, cn*b.NiEff, cp*b.NiEff
 		sq := math.Sqrt(A*A - 4*B*C)
 		F := func(e float64) float64 {
 			u := math.Exp(e / b.Vt)
@@ -115,7 +117,7 @@ func TestFlatBandDirectIntegral(t *testing.T) {
 			return math.Log((2*B*u + 4*B*C/(A+sq)) / (2*B*u + A + sq))
 		}
 		eLo, eHi := -b.Vt*math.Log(b.Nv/b.NiEff), b.Vt*math.Log(b.Nc/b.NiEff)
-		np, _ := b.npExcess()
+		np, _ := excess(b)
 		us := c.d * np * cn * cp * b.Vt / sq * (F(eHi) - F(eLo))
 		if e := relErr(r.Us, us); e > 1e-12 {
 			t.Errorf("%+v: Us = %.15g, direct integral %.15g (rel. err %.2g)", c, r.Us, us, e)
@@ -175,11 +177,11 @@ func TestStrongAccumulationInversion(t *testing.T) {
 			y := math.Abs(r.Psi / b.Vt)
 			n1max := b.NiEff * math.Exp(5*dit.Width/b.Vt) // beyond 5 widths Dit is negligible
 			ratio := 1 + sn/sp + sp/sn                    // weight of the other terms of the rate's denominator
-			corr := (b.N()+b.P())*(y+1)*k2/(q*q) + ratio*(n1max+b.N()*b.P()/attracted)/attracted
+			corr := (b.N+b.P)*(y+1)*k2/(q*q) + ratio*(n1max+b.N*b.P/attracted)/attracted
 			if e := relErr(attracted, q*q/k2); e > 2*corr {
 				t.Errorf("%+v charged=%v: attracted density %g, Qf²/k2 = %g (rel. %.2g > %.2g)", c, charged, attracted, q*q/k2, e, 2*corr)
 			}
-			np, _ := b.npExcess()
+			np, _ := excess(b)
 			want := sigma * DefaultVth * nit * np / (b.Dn * q * q / k2)
 			if e := relErr(r.Seff, want); e > 2*corr {
 				t.Errorf("%+v charged=%v: Seff = %.6g, limit %.6g (rel. %.2g > %.2g)", c, charged, r.Seff, want, e, 2*corr)
@@ -206,7 +208,7 @@ func TestDepletionApproximation(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		maj, mnr, y := b.P(), b.N(), r.Psi/b.Vt
+		maj, mnr, y := b.P, b.N, r.Psi/b.Vt
 		if !b.PType() {
 			maj, mnr, y = mnr, maj, -y
 		}
@@ -264,13 +266,13 @@ func TestChargeNeutralityGrid(t *testing.T) {
 						if (r.Qf+r.Qit > 0 && !(r.Psi > 0)) || (r.Qf+r.Qit < 0 && !(r.Psi < 0)) {
 							t.Errorf("Qf %g, Qit %g: ψs = %g V", qf, r.Qit, r.Psi)
 						}
-						if !(r.Seff > 0) || !(r.J0s > 0) || relErr(r.Ns*r.Ps, b.N()*b.P()) > 1e-13 {
-							t.Errorf("Qf %g: Seff %g, J0s %g, ns ps = %g vs n p = %g", qf, r.Seff, r.J0s, r.Ns*r.Ps, b.N()*b.P())
+						if !(r.Seff > 0) || !(r.J0s > 0) || relErr(r.Ns*r.Ps, b.N*b.P) > 1e-13 {
+							t.Errorf("Qf %g: Seff %g, J0s %g, ns ps = %g vs n p = %g", qf, r.Seff, r.J0s, r.Ns*r.Ps, b.N*b.P)
 						}
 						maj, mnr := r.Ps, r.Ns
-						bulkMaj := b.P()
+						bulkMaj := b.P
 						if !pType {
-							maj, mnr, bulkMaj = r.Ns, r.Ps, b.N()
+							maj, mnr, bulkMaj = r.Ns, r.Ps, b.N
 						}
 						var want Regime
 						switch {
@@ -389,9 +391,12 @@ func TestDepletionHighestSeff(t *testing.T) {
 // σn ↔ σp, E − Ei → −(E − Ei) and Nc ↔ Nv, so a p-type wafer and its mirror n-type wafer have
 // the same Seff and opposite band bending (derived). With charged interface states.
 func TestMirrorSymmetry(t *testing.T) {
-	b := Bulk{Nd: 0, Na: 1e16, N0: 1e4, P0: 1e16, Dn: 1e14, NiEff0: 1e10, NiEff: 1e10, Vt: 0.025852, Nc: 3e19, Nv: 3e19}
+	// A hand-made state with constant ni,eff: n p − ni,eff² = Δn (n0 + p0 + Δn).
+	b := recomb.State{T: 300, Vt: 0.025852, Nc: 3e19, Nv: 3e19, Ni: 1e10, NiEff: 1e10,
+		NdIon: 0, NaIon: 1e16, N0: 1e4, P0: 1e16, Dn: 1e14}
+	b.N, b.P, b.Excess = b.N0+b.Dn, b.P0+b.Dn, b.Dn*(b.N0+b.P0+b.Dn)
 	mb := b
-	mb.Nd, mb.Na, mb.N0, mb.P0 = b.Na, b.Nd, b.P0, b.N0
+	mb.NdIon, mb.NaIon, mb.N0, mb.P0, mb.N, mb.P = b.NaIon, b.NdIon, b.P0, b.N0, b.P, b.N
 	dit := GaussianDit{Peak: 1e12, E0: 0.15, Width: 0.08}
 	mdit := GaussianDit{Peak: 1e12, E0: -0.15, Width: 0.08}
 	for _, qf := range []float64{-1e12, -1e10, 0, 3e10, 1e11, 1e12} {
@@ -442,21 +447,21 @@ func TestLinearInDit(t *testing.T) {
 func TestResultConsistency(t *testing.T) {
 	mat := defaultMaterial(t)
 	m := NewExtendedSRH(ConstantDit{1e11}, ConstantSigma(1e-16), ConstantSigma(1e-16), 5e12)
-	rs, err := m.Curve(mat, 0, 1e16, []float64{1e10, 1e11, 1e12})
+	rs, err := m.Curve(mustWafer(t, mat, 0, 1e16), []float64{1e10, 1e11, 1e12})
 	if err != nil {
 		t.Fatal(err)
 	}
 	for _, r := range rs {
-		j, err := J0sFromSeff(r.Seff, r.Bulk)
+		j, err := J0sFromSeff(r.Seff, r.State)
 		if err != nil {
 			t.Fatal(err)
 		}
 		if relErr(j, r.J0s) > 1e-14 {
-			t.Errorf("Δn %g: J0s %g vs J0sFromSeff %g", r.Bulk.Dn, r.J0s, j)
+			t.Errorf("Δn %g: J0s %g vs J0sFromSeff %g", r.State.Dn, r.J0s, j)
 		}
 		// ns changes with Δn only through the depletion charge p (y − 1), a relative 1e-4 here.
 		if relErr(r.J0s, rs[0].J0s) > 1e-3 {
-			t.Errorf("Δn %g: J0s %g vs %g at low injection", r.Bulk.Dn, r.J0s, rs[0].J0s)
+			t.Errorf("Δn %g: J0s %g vs %g at low injection", r.State.Dn, r.J0s, rs[0].J0s)
 		}
 	}
 }
@@ -509,31 +514,31 @@ func TestExtendedSRHErrors(t *testing.T) {
 	badTab := TabulatedDit{E: []float64{0, 0.1}, D: []float64{1, -1}}
 	for _, c := range []struct {
 		name     string
-		edit     func(*ExtendedSRH, *Bulk)
+		edit     func(*ExtendedSRH, *recomb.State)
 		rangeErr bool
 	}{
-		{"nil Dit", func(m *ExtendedSRH, _ *Bulk) { m.Dit = nil }, false},
-		{"nil SigmaN", func(m *ExtendedSRH, _ *Bulk) { m.SigmaN = nil }, false},
-		{"nil SigmaP", func(m *ExtendedSRH, _ *Bulk) { m.SigmaP = nil }, false},
-		{"NaN Qf", func(m *ExtendedSRH, _ *Bulk) { m.Qf = math.NaN() }, false},
-		{"Inf Qf", func(m *ExtendedSRH, _ *Bulk) { m.Qf = math.Inf(-1) }, false},
-		{"Qf too large", func(m *ExtendedSRH, _ *Bulk) { m.Qf = 2e13 }, true},
-		{"zero Vth", func(m *ExtendedSRH, _ *Bulk) { m.VthN = 0 }, false},
-		{"NaN EpsR", func(m *ExtendedSRH, _ *Bulk) { m.EpsR = math.NaN() }, false},
-		{"NaN level", func(m *ExtendedSRH, _ *Bulk) { m.NeutralLevel = math.NaN() }, false},
-		{"negative Dit", func(m *ExtendedSRH, _ *Bulk) { m.Dit = ConstantDit{-1} }, false},
-		{"NaN Dit", func(m *ExtendedSRH, _ *Bulk) { m.Dit = ConstantDit{math.NaN()} }, false},
-		{"bad table", func(m *ExtendedSRH, _ *Bulk) { m.Dit = badTab }, false},
-		{"bad sum", func(m *ExtendedSRH, _ *Bulk) { m.Dit = DitSum{ConstantDit{1}, nil} }, false},
-		{"zero sigma", func(m *ExtendedSRH, _ *Bulk) { m.SigmaP = ConstantSigma(0) }, false},
-		{"zero Gaussian width", func(m *ExtendedSRH, _ *Bulk) { m.Dit = GaussianDit{Peak: 1} }, false},
-		{"bad sigma table", func(m *ExtendedSRH, _ *Bulk) { m.SigmaN = TabulatedSigma{E: []float64{0}, S: []float64{1e-16}} }, false},
-		{"Bulk NaN Dn", func(_ *ExtendedSRH, b *Bulk) { b.Dn = math.NaN() }, false},
-		{"Bulk zero Dn", func(_ *ExtendedSRH, b *Bulk) { b.Dn = 0 }, false},
-		{"Bulk Dn too large", func(_ *ExtendedSRH, b *Bulk) { b.Dn = 2e18 }, true},
-		{"Bulk Na too large", func(_ *ExtendedSRH, b *Bulk) { b.Na = 1e19 }, true},
-		{"Bulk zero Vt", func(_ *ExtendedSRH, b *Bulk) { b.Vt = 0 }, false},
-		{"Bulk NiEff above Nc", func(_ *ExtendedSRH, b *Bulk) { b.NiEff, b.NiEff0 = 1e20, 1e20; b.N0, b.P0 = 1e20, 1e20 }, false},
+		{"nil Dit", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = nil }, false},
+		{"nil SigmaN", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaN = nil }, false},
+		{"nil SigmaP", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaP = nil }, false},
+		{"NaN Qf", func(m *ExtendedSRH, _ *recomb.State) { m.Qf = math.NaN() }, false},
+		{"Inf Qf", func(m *ExtendedSRH, _ *recomb.State) { m.Qf = math.Inf(-1) }, false},
+		{"Qf too large", func(m *ExtendedSRH, _ *recomb.State) { m.Qf = 2e13 }, true},
+		{"zero Vth", func(m *ExtendedSRH, _ *recomb.State) { m.Vth.Electron300 = 0 }, false},
+		{"NaN EpsR", func(m *ExtendedSRH, _ *recomb.State) { m.EpsR = math.NaN() }, false},
+		{"NaN level", func(m *ExtendedSRH, _ *recomb.State) { m.NeutralLevel = math.NaN() }, false},
+		{"negative Dit", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = ConstantDit{-1} }, false},
+		{"NaN Dit", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = ConstantDit{math.NaN()} }, false},
+		{"bad table", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = badTab }, false},
+		{"bad sum", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = DitSum{ConstantDit{1}, nil} }, false},
+		{"zero sigma", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaP = ConstantSigma(0) }, false},
+		{"zero Gaussian width", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = GaussianDit{Peak: 1} }, false},
+		{"bad sigma table", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaN = TabulatedSigma{E: []float64{0}, S: []float64{1e-16}} }, false},
+		{"Bulk NaN Dn", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = math.NaN() }, false},
+		{"Bulk zero Dn", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = 0 }, false},
+		{"Bulk Dn too large", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = 2e18 }, true},
+		{"Bulk Na too large", func(_ *ExtendedSRH, b *recomb.State) { b.NaIon = 1e19 }, true},
+		{"Bulk zero Vt", func(_ *ExtendedSRH, b *recomb.State) { b.Vt = 0 }, false},
+		{"Bulk NiEff above Nc", func(_ *ExtendedSRH, b *recomb.State) { b.NiEff = 1e20; b.N0, b.P0 = 1e20, 1e20 }, false},
 	} {
 		m, bb := good, b
 		c.edit(&m, &bb)
@@ -542,22 +547,20 @@ func TestExtendedSRHErrors(t *testing.T) {
 			t.Errorf("%s: no error (Seff %g)", c.name, r.Seff)
 			continue
 		}
-		if got := errors.Is(err, ErrOutOfRange); got != c.rangeErr {
-			t.Errorf("%s: errors.Is(ErrOutOfRange) = %v: %v", c.name, got, err)
+		if got := errors.Is(err, pvrec.ErrOutOfRange); got != c.rangeErr {
+			t.Errorf("%s: errors.Is(pvrec.ErrOutOfRange) = %v: %v", c.name, got, err)
 		}
 		if msg := err.Error(); len(msg) < 9 || msg[:9] != "surface: " {
 			t.Errorf("%s: message %q does not start with the package name", c.name, msg)
 		}
 	}
-	if _, err := NewBulk(nil, 0, 1e16, 1e15); err == nil {
-		t.Error("NewBulk(nil): no error")
+	if _, err := good.Solve(recomb.State{}); err == nil {
+		t.Error("Solve(zero State): no error")
 	}
-	for _, a := range [][3]float64{{-1, 0, 1}, {0, math.NaN(), 1}, {0, 1e16, 0}, {0, 1e16, math.Inf(1)}} {
-		if _, err := NewBulk(mat, a[0], a[1], a[2]); err == nil {
-			t.Errorf("NewBulk%v: no error", a)
-		}
+	if _, err := good.Curve(nil, []float64{1e14}); err == nil {
+		t.Error("Curve(nil wafer): no error")
 	}
-	if _, err := good.Curve(mat, 0, 1e16, []float64{1e14, -1}); err == nil {
+	if _, err := good.Curve(mustWafer(t, mat, 0, 1e16), []float64{1e14, -1}); err == nil {
 		t.Error("Curve with negative Δn: no error")
 	}
 }

@@ -4,6 +4,7 @@ import (
 	"math"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -32,13 +33,29 @@ func defaultMaterial(tb testing.TB) *silicon.Material {
 	return m
 }
 
-func mustBulk(tb testing.TB, m *silicon.Material, nd, na, dn float64) Bulk {
+// mustWafer returns the wafer of m with dopants nd, na (cm^-3).
+func mustWafer(tb testing.TB, m *silicon.Material, nd, na float64) *recomb.Bulk {
 	tb.Helper()
-	b, err := NewBulk(m, nd, na, dn)
+	b, err := recomb.NewBulk(m, nd, na)
 	if err != nil {
 		tb.Fatal(err)
 	}
 	return b
+}
+
+// mustBulk returns the quasi-neutral state of a wafer of m with dopants nd, na at excess
+// density dn (all cm^-3).
+func mustBulk(tb testing.TB, m *silicon.Material, nd, na, dn float64) recomb.State {
+	tb.Helper()
+	b, err := recomb.NewBulk(m, nd, na)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	s, err := b.State(dn)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return s
 }
 
 func relErr(got, want float64) float64 {

@@ -3,11 +3,13 @@ package surface
 import (
 	"fmt"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // SeffFromJ0s returns the effective surface recombination velocity Seff in cm/s of a surface
-// with surface saturation current density j0s (A/cm^2, finite, >= 0) at bulk state b:
+// with surface saturation current density j0s (A/cm^2, finite, >= 0) at the quasi-neutral bulk state s:
 //
 //	Seff = J0s (n p − ni,eff²) / (q ni,eff² Δn),   n = n0 + Δn, p = p0 + Δn,
 //
@@ -24,39 +26,42 @@ import (
 // relation is then exact for any Us; J0s is independent of Δn only for a surface whose Us is
 // proportional to n p − ni,eff² (an inverted or strongly accumulated surface in low injection,
 // or a diffused region).
-func SeffFromJ0s(j0s float64, b Bulk) (float64, error) {
-	if err := checkNonNeg("j0s", "A/cm^2", j0s); err != nil {
+func SeffFromJ0s(j0s float64, s recomb.State) (float64, error) {
+	if err := check.NonNegative("surface: SeffFromJ0s", "j0s", j0s, "A/cm^2"); err != nil {
 		return 0, err
 	}
-	x, err := b.npExcess()
+	x, err := excess(s)
 	if err != nil {
 		return 0, err
 	}
-	return j0s * x / (silicon.ElementaryCharge * b.NiEff * b.NiEff * b.Dn), nil
+	return j0s * x / (silicon.ElementaryCharge * s.NiEff * s.NiEff * s.Dn), nil
 }
 
 // J0sFromSeff returns the surface saturation current density J0s in A/cm^2 of a surface with
-// effective surface recombination velocity seff (cm/s, finite, >= 0) at bulk state b, the
+// effective surface recombination velocity seff (cm/s, finite, >= 0) at the quasi-neutral state s, the
 // inverse of SeffFromJ0s (same form and assumptions):
 //
 //	J0s = q Seff ni,eff² Δn / (n p − ni,eff²).
-func J0sFromSeff(seff float64, b Bulk) (float64, error) {
-	if err := checkNonNeg("seff", "cm/s", seff); err != nil {
+func J0sFromSeff(seff float64, s recomb.State) (float64, error) {
+	if err := check.NonNegative("surface: J0sFromSeff", "seff", seff, "cm/s"); err != nil {
 		return 0, err
 	}
-	x, err := b.npExcess()
+	x, err := excess(s)
 	if err != nil {
 		return 0, err
 	}
-	return silicon.ElementaryCharge * seff * b.NiEff * b.NiEff * b.Dn / x, nil
+	return silicon.ElementaryCharge * seff * s.NiEff * s.NiEff * s.Dn / x, nil
 }
 
 // Model is a surface whose recombination is described by an effective surface recombination
-// velocity at a bulk state: ConstantSeff, ConstantJ0s and ExtendedSRH implement it.
+// velocity at the quasi-neutral state of the wafer next to it (a recomb.State, the one wafer
+// state of pvrec): ConstantSeff, ConstantJ0s and ExtendedSRH implement it. To use a Model as
+// the front surface of a diffused region in the J0 solver, see j0.ModelSurface.
 type Model interface {
-	// Seff returns the effective surface recombination velocity in cm/s at bulk state b,
+	// Seff returns the effective surface recombination velocity in cm/s at the quasi-neutral
+	// bulk state s (from recomb.Bulk.State),
 	// referred to the edge of the space-charge region.
-	Seff(b Bulk) (float64, error)
+	Seff(s recomb.State) (float64, error)
 	// String returns a short name of the model and its parameters.
 	String() string
 }
@@ -70,12 +75,12 @@ type ConstantSeff struct {
 // String returns e.g. "ConstantSeff(10 cm/s)".
 func (m ConstantSeff) String() string { return fmt.Sprintf("ConstantSeff(%g cm/s)", m.S) }
 
-// Seff returns m.S in cm/s after checking b and m.S.
-func (m ConstantSeff) Seff(b Bulk) (float64, error) {
-	if err := checkNonNeg("ConstantSeff.S", "cm/s", m.S); err != nil {
+// Seff returns m.S in cm/s after checking s and m.S.
+func (m ConstantSeff) Seff(s recomb.State) (float64, error) {
+	if err := check.NonNegative("surface", "ConstantSeff.S", m.S, "cm/s"); err != nil {
 		return 0, err
 	}
-	if err := b.Validate(); err != nil {
+	if _, err := excess(s); err != nil {
 		return 0, err
 	}
 	return m.S, nil
@@ -91,10 +96,10 @@ type ConstantJ0s struct {
 // String returns e.g. "ConstantJ0s(1e-14 A/cm^2)".
 func (m ConstantJ0s) String() string { return fmt.Sprintf("ConstantJ0s(%g A/cm^2)", m.J0s) }
 
-// Seff returns SeffFromJ0s(m.J0s, b) in cm/s.
-func (m ConstantJ0s) Seff(b Bulk) (float64, error) {
-	if err := checkNonNeg("ConstantJ0s.J0s", "A/cm^2", m.J0s); err != nil {
+// Seff returns SeffFromJ0s(m.J0s, s) in cm/s.
+func (m ConstantJ0s) Seff(s recomb.State) (float64, error) {
+	if err := check.NonNegative("surface", "ConstantJ0s.J0s", m.J0s, "A/cm^2"); err != nil {
 		return 0, err
 	}
-	return SeffFromJ0s(m.J0s, b)
+	return SeffFromJ0s(m.J0s, s)
 }

@@ -5,6 +5,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -99,13 +100,14 @@ func TestRelationErrors(t *testing.T) {
 		"SeffFromJ0s neg":   func() (float64, error) { return SeffFromJ0s(-1, b) },
 		"SeffFromJ0s bulk":  func() (float64, error) { return SeffFromJ0s(1e-14, bad) },
 		"J0sFromSeff Inf":   func() (float64, error) { return J0sFromSeff(math.Inf(1), b) },
-		"J0sFromSeff bulk":  func() (float64, error) { return J0sFromSeff(1, Bulk{}) },
+		"J0sFromSeff bulk":  func() (float64, error) { return J0sFromSeff(1, recomb.State{}) },
 		"ConstantSeff neg":  func() (float64, error) { return ConstantSeff{S: -1}.Seff(b) },
 		"ConstantSeff bulk": func() (float64, error) { return ConstantSeff{S: 1}.Seff(bad) },
 		"ConstantJ0s NaN":   func() (float64, error) { return ConstantJ0s{J0s: math.NaN()}.Seff(b) },
 		"np − ni² not positive": func() (float64, error) {
 			x := b
 			x.NiEff = 1e18 // a BGN model raising ni,eff far faster than n p
+			x.Excess = x.N*x.P - x.NiEff*x.NiEff
 			return SeffFromJ0s(1e-14, x)
 		},
 	} {

@@ -3,6 +3,8 @@ package surface
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Wafer lifetimes. The fundamental mode of the decay of excess carriers in a wafer of
@@ -18,10 +20,10 @@ import (
 // higher modes have died out, with Δn-independent D and S; a quasi-steady-state measurement
 // with uniform generation sees nearly the same τeff when S W/D is small.
 
-// maxAlphaIter bounds the root-finder iterations of SurfaceLifetime.
+// maxAlphaIter bounds the root-finder iterations of Lifetime.
 const maxAlphaIter = 200
 
-// SurfaceLifetime returns the surface-limited lifetime τs = 1/(D α²) in s of the fundamental
+// Lifetime returns the surface-limited lifetime τs = 1/(D α²) in s of the fundamental
 // mode (Sproul 1994, see above) of a wafer of thickness w (cm, finite, > 0) and carrier
 // diffusivity d (cm^2/s, finite, > 0; the minority-carrier diffusivity in low injection, the
 // ambipolar one in high injection), with surface recombination velocities s1 and s2 (cm/s,
@@ -33,7 +35,7 @@ const maxAlphaIter = 200
 // that Si = +Inf is exact, is found by Brent's bracketed method on (0, π), where it is the
 // only root (the Robin eigenvalues of the slab lie one in each interval (kπ, (k+1)π)), to a
 // relative accuracy of 1e-14 in x.
-func SurfaceLifetime(w, d, s1, s2 float64) (float64, error) {
+func Lifetime(w, d, s1, s2 float64) (float64, error) {
 	x, err := fundamentalRoot(w, d, s1, s2)
 	if err != nil {
 		return 0, err
@@ -45,60 +47,60 @@ func SurfaceLifetime(w, d, s1, s2 float64) (float64, error) {
 }
 
 // EffectiveLifetime returns the effective lifetime τeff in s of the fundamental mode,
-// 1/τeff = 1/τb + 1/τs with τs from SurfaceLifetime(w, d, s1, s2), for bulk lifetime tauBulk
-// (s, > 0, +Inf allowed for a perfect bulk). Arguments and source as for SurfaceLifetime.
+// 1/τeff = 1/τb + 1/τs with τs from Lifetime(w, d, s1, s2), for bulk lifetime tauBulk
+// (s, > 0, +Inf allowed for a perfect bulk). Arguments and source as for Lifetime.
 func EffectiveLifetime(tauBulk, w, d, s1, s2 float64) (float64, error) {
 	if math.IsNaN(tauBulk) || !(tauBulk > 0) {
 		return 0, fmt.Errorf("surface: bulk lifetime tauBulk must be > 0 s (or +Inf), got %g", tauBulk)
 	}
-	ts, err := SurfaceLifetime(w, d, s1, s2)
+	ts, err := Lifetime(w, d, s1, s2)
 	if err != nil {
 		return 0, err
 	}
 	return 1 / (1/tauBulk + 1/ts), nil
 }
 
-// SurfaceLifetimeSproul returns the approximation of A. B. Sproul, J. Appl. Phys. 76, 2851
+// LifetimeSproul returns the approximation of A. B. Sproul, J. Appl. Phys. 76, 2851
 // (1994) to the surface-limited lifetime of a symmetric wafer (both surfaces with s), in s:
 //
 //	τs ≈ W/(2S) + W²/(D π²),
 //
 // which joins the low-S limit W/(2S) to the diffusion limit W²/(π² D). Sproul states an
-// accuracy of about 5 % for all S (value from memory); against SurfaceLifetime the largest
+// accuracy of about 5 % for all S (value from memory); against Lifetime the largest
 // deviation is 5.06 %, at S W/D ≈ 5. A wafer with one surface at s and the other at S = 0 is
 // half of a symmetric wafer of thickness 2W (mirror symmetry), so for it use
-// SurfaceLifetimeSproul(2w, d, s) = W/S + 4 W²/(D π²), with the same accuracy. Arguments as for
-// SurfaceLifetime (s may be +Inf); it returns +Inf for s = 0.
-func SurfaceLifetimeSproul(w, d, s float64) (float64, error) {
+// LifetimeSproul(2w, d, s) = W/S + 4 W²/(D π²), with the same accuracy. Arguments as for
+// Lifetime (s may be +Inf); it returns +Inf for s = 0.
+func LifetimeSproul(w, d, s float64) (float64, error) {
 	if err := checkWafer(w, d, s, s); err != nil {
 		return 0, err
 	}
 	return w/(2*s) + w*w/(d*math.Pi*math.Pi), nil
 }
 
-// SurfaceLifetimeLowS returns the low-S limit of the surface-limited lifetime,
+// LifetimeLowS returns the low-S limit of the surface-limited lifetime,
 // τs ≈ W/(S1 + S2) in s (uniform Δn across the wafer), for w in cm (> 0) and s1, s2 in cm/s
 // (finite, >= 0). Its relative error, from the expansion of the exact equation (Sproul 1994,
 // above) for small hi = Si W/D, is τs,approx/τs − 1 ≈ h1 h2/(h1 + h2) − (h1 + h2)/3 (−h/6 for
 // a symmetric wafer), so it underestimates τs by less than 1 % when (S1 + S2) W/D < 0.03. It
 // returns +Inf for s1 = s2 = 0.
-func SurfaceLifetimeLowS(w, s1, s2 float64) (float64, error) {
-	if err := checkPos("w", "cm", w); err != nil {
+func LifetimeLowS(w, s1, s2 float64) (float64, error) {
+	if err := check.Positive("surface", "thickness w", w, "cm"); err != nil {
 		return 0, err
 	}
-	if err := checkNonNeg("s1", "cm/s", s1); err != nil {
+	if err := check.NonNegative("surface", "s1", s1, "cm/s"); err != nil {
 		return 0, err
 	}
-	if err := checkNonNeg("s2", "cm/s", s2); err != nil {
+	if err := check.NonNegative("surface", "s2", s2, "cm/s"); err != nil {
 		return 0, err
 	}
 	return w / (s1 + s2), nil
 }
 
-// SurfaceLifetimeDiffusionLimit returns the limit of the surface-limited lifetime for
+// LifetimeDiffusionLimit returns the limit of the surface-limited lifetime for
 // S1 = S2 → ∞, τs = W²/(π² D) in s (Sproul 1994): no passivation can make τs shorter. For
 // w in cm and d in cm^2/s (finite, > 0).
-func SurfaceLifetimeDiffusionLimit(w, d float64) (float64, error) {
+func LifetimeDiffusionLimit(w, d float64) (float64, error) {
 	if err := checkWafer(w, d, 0, 0); err != nil {
 		return 0, err
 	}
@@ -107,10 +109,10 @@ func SurfaceLifetimeDiffusionLimit(w, d float64) (float64, error) {
 
 // checkWafer validates the arguments of the wafer-lifetime functions.
 func checkWafer(w, d, s1, s2 float64) error {
-	if err := checkPos("w", "cm", w); err != nil {
+	if err := check.Positive("surface", "thickness w", w, "cm"); err != nil {
 		return err
 	}
-	if err := checkPos("d", "cm^2/s", d); err != nil {
+	if err := check.Positive("surface", "diffusivity d", d, "cm^2/s"); err != nil {
 		return err
 	}
 	for _, s := range [...]struct {
@@ -165,7 +167,7 @@ func fundamentalRoot(w, d, s1, s2 float64) (float64, error) {
 	fhi, _ := f(hi)
 	if !(flo < 0) || !(fhi > 0) {
 		return 0, fmt.Errorf("surface: fundamental-mode root not bracketed for w = %g cm, d = %g cm^2/s, s1 = %g, s2 = %g cm/s: %w",
-			w, d, s1, s2, ErrNoConvergence)
+			w, d, s1, s2, check.ErrNoConvergence)
 	}
 	x, err := brent(f, lo, hi, flo, fhi, 0, maxAlphaIter)
 	if err != nil {

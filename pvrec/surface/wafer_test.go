@@ -7,11 +7,11 @@ import (
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 )
 
-// TestSurfaceLifetimeReference: fundamental-mode roots of Sproul's equation, A. B. Sproul,
+// TestLifetimeReference: fundamental-mode roots of Sproul's equation, A. B. Sproul,
 // J. Appl. Phys. 76, 2851 (1994), against mpmath at 40 digits
 // (testdata/reference/surface_sproul.py), for hi = Si W/D from 1e-6 to 1e7 including asymmetric
 // wafers. Tolerance 1e-13 relative in τs: the root is solved to a few ulp in x.
-func TestSurfaceLifetimeReference(t *testing.T) {
+func TestLifetimeReference(t *testing.T) {
 	const w, d = 0.018, 30.0 // 180 µm, cm^2/s
 	rows := reftable.Load(t, "surface_sproul").Rows
 	if len(rows) < 60 {
@@ -24,7 +24,7 @@ func TestSurfaceLifetimeReference(t *testing.T) {
 			if swap {
 				s1, s2 = s2, s1
 			}
-			ts, err := SurfaceLifetime(w, d, s1, s2)
+			ts, err := Lifetime(w, d, s1, s2)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -45,8 +45,8 @@ func TestSproulApproximation(t *testing.T) {
 	for lh := -6.0; lh <= 6; lh += 0.01 {
 		h := math.Pow(10, lh)
 		s := h * d / w
-		ex, err1 := SurfaceLifetime(w, d, s, s)
-		ap, err2 := SurfaceLifetimeSproul(w, d, s)
+		ex, err1 := Lifetime(w, d, s, s)
+		ap, err2 := LifetimeSproul(w, d, s)
 		if err1 != nil || err2 != nil {
 			t.Fatal(err1, err2)
 		}
@@ -59,8 +59,8 @@ func TestSproulApproximation(t *testing.T) {
 	}
 	// One-sided wafer by mirror symmetry (derived): exact τs(W; S, 0) = τs(2W; S, S).
 	for _, s := range []float64{1, 100, 1e4, math.Inf(1)} {
-		a, _ := SurfaceLifetime(w, d, s, 0)
-		b, _ := SurfaceLifetime(2*w, d, s, s)
+		a, _ := Lifetime(w, d, s, 0)
+		b, _ := Lifetime(2*w, d, s, s)
 		if relErr(a, b) > 1e-13 {
 			t.Errorf("S = %g: one-sided %.15g, mirrored %.15g", s, a, b)
 		}
@@ -68,13 +68,13 @@ func TestSproulApproximation(t *testing.T) {
 }
 
 // TestLowSApproximation: τs ≈ W/(S1+S2) has the relative error h1h2/(h1+h2) − (h1+h2)/3 to first
-// order (derived in SurfaceLifetimeLowS), with a remainder below (h1+h2)².
+// order (derived in LifetimeLowS), with a remainder below (h1+h2)².
 func TestLowSApproximation(t *testing.T) {
 	const w, d = 0.018, 30.0
 	for _, h := range [][2]float64{{1e-4, 0}, {1e-3, 1e-3}, {0.01, 0.05}, {0.02, 0}, {0.03, 0.001}, {0.1, 0.1}} {
 		s1, s2 := h[0]*d/w, h[1]*d/w
-		ex, err1 := SurfaceLifetime(w, d, s1, s2)
-		ap, err2 := SurfaceLifetimeLowS(w, s1, s2)
+		ex, err1 := Lifetime(w, d, s1, s2)
+		ap, err2 := LifetimeLowS(w, s1, s2)
 		if err1 != nil || err2 != nil {
 			t.Fatal(err1, err2)
 		}
@@ -84,18 +84,18 @@ func TestLowSApproximation(t *testing.T) {
 			t.Errorf("h = %v: error %.6g, first-order prediction %.6g", h, e, pred)
 		}
 	}
-	if ts, _ := SurfaceLifetimeLowS(0.018, 0, 0); !math.IsInf(ts, 1) {
+	if ts, _ := LifetimeLowS(0.018, 0, 0); !math.IsInf(ts, 1) {
 		t.Errorf("S = 0: %g, want +Inf", ts)
 	}
 }
 
-// TestSurfaceLifetimeLimits: closed forms of the exact equation (Sproul 1994): x = π for two
+// TestLifetimeLimits: closed forms of the exact equation (Sproul 1994): x = π for two
 // ideal sinks (τs = W²/(π² D)), x = π/2 for one sink and one perfect surface (4W²/(π² D)),
 // no surface recombination gives τs = +Inf; τs falls monotonically with S.
-func TestSurfaceLifetimeLimits(t *testing.T) {
+func TestLifetimeLimits(t *testing.T) {
 	const w, d = 0.016, 25.0
 	inf := math.Inf(1)
-	lim, _ := SurfaceLifetimeDiffusionLimit(w, d)
+	lim, _ := LifetimeDiffusionLimit(w, d)
 	for _, c := range []struct {
 		s1, s2, want float64
 	}{
@@ -105,21 +105,21 @@ func TestSurfaceLifetimeLimits(t *testing.T) {
 		{0, 0, inf},
 		{1e15, 1e15, lim}, // x = π(1 − 2/h) to first order: 6e-12 relative here
 	} {
-		got, err := SurfaceLifetime(w, d, c.s1, c.s2)
+		got, err := Lifetime(w, d, c.s1, c.s2)
 		if err != nil || relErr(got, c.want) > 1e-9 {
 			t.Errorf("S = %g, %g: τs = %g, %v; want %g", c.s1, c.s2, got, err, c.want)
 		}
 	}
 	prev := inf
 	for s := 1e-3; s < 1e9; s *= 3 {
-		ts, _ := SurfaceLifetime(w, d, s, s/2)
+		ts, _ := Lifetime(w, d, s, s/2)
 		if !(ts < prev) {
 			t.Errorf("S = %g: τs = %g not below %g", s, ts, prev)
 		}
 		prev = ts
 	}
 	// Effective lifetime: harmonic sum with the bulk; +Inf bulk gives τs.
-	ts, _ := SurfaceLifetime(w, d, 10, 20)
+	ts, _ := Lifetime(w, d, 10, 20)
 	te, err := EffectiveLifetime(1e-3, w, d, 10, 20)
 	if err != nil || relErr(te, 1/(1/1e-3+1/ts)) > 1e-15 {
 		t.Errorf("EffectiveLifetime = %g, %v", te, err)
@@ -135,19 +135,19 @@ func TestSurfaceLifetimeLimits(t *testing.T) {
 func TestWaferErrors(t *testing.T) {
 	nan := math.NaN()
 	for name, f := range map[string]func() (float64, error){
-		"w zero":        func() (float64, error) { return SurfaceLifetime(0, 30, 1, 1) },
-		"w NaN":         func() (float64, error) { return SurfaceLifetime(nan, 30, 1, 1) },
-		"d negative":    func() (float64, error) { return SurfaceLifetime(0.02, -1, 1, 1) },
-		"d Inf":         func() (float64, error) { return SurfaceLifetime(0.02, math.Inf(1), 1, 1) },
-		"s1 negative":   func() (float64, error) { return SurfaceLifetime(0.02, 30, -1, 1) },
-		"s2 NaN":        func() (float64, error) { return SurfaceLifetime(0.02, 30, 1, nan) },
+		"w zero":        func() (float64, error) { return Lifetime(0, 30, 1, 1) },
+		"w NaN":         func() (float64, error) { return Lifetime(nan, 30, 1, 1) },
+		"d negative":    func() (float64, error) { return Lifetime(0.02, -1, 1, 1) },
+		"d Inf":         func() (float64, error) { return Lifetime(0.02, math.Inf(1), 1, 1) },
+		"s1 negative":   func() (float64, error) { return Lifetime(0.02, 30, -1, 1) },
+		"s2 NaN":        func() (float64, error) { return Lifetime(0.02, 30, 1, nan) },
 		"tauBulk zero":  func() (float64, error) { return EffectiveLifetime(0, 0.02, 30, 1, 1) },
 		"tauBulk NaN":   func() (float64, error) { return EffectiveLifetime(nan, 0.02, 30, 1, 1) },
-		"Sproul s NaN":  func() (float64, error) { return SurfaceLifetimeSproul(0.02, 30, nan) },
-		"LowS Inf":      func() (float64, error) { return SurfaceLifetimeLowS(0.02, math.Inf(1), 0) },
-		"LowS w":        func() (float64, error) { return SurfaceLifetimeLowS(-1, 1, 0) },
-		"LowS s2":       func() (float64, error) { return SurfaceLifetimeLowS(0.02, 1, -2) },
-		"Diffusion d 0": func() (float64, error) { return SurfaceLifetimeDiffusionLimit(0.02, 0) },
+		"Sproul s NaN":  func() (float64, error) { return LifetimeSproul(0.02, 30, nan) },
+		"LowS Inf":      func() (float64, error) { return LifetimeLowS(0.02, math.Inf(1), 0) },
+		"LowS w":        func() (float64, error) { return LifetimeLowS(-1, 1, 0) },
+		"LowS s2":       func() (float64, error) { return LifetimeLowS(0.02, 1, -2) },
+		"Diffusion d 0": func() (float64, error) { return LifetimeDiffusionLimit(0.02, 0) },
 	} {
 		if v, err := f(); err == nil {
 			t.Errorf("%s: no error (got %g)", name, v)

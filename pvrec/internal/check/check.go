@@ -123,10 +123,13 @@ func Density(ctx, name string, v float64) error { return NonNegative(ctx, name, 
 // Temperature returns an error unless t is a finite, positive temperature in K.
 func Temperature(ctx string, t float64) error { return Positive(ctx, "temperature T", t, "K") }
 
-// Window returns a RangeError unless tmin <= t <= tmax: the temperature window of a model.
+// Window returns a RangeError unless tmin <= t <= tmax: the temperature window of a model,
+// "pkg: model: temperature T = 350 K outside the model's window [290, 310] K".
 func Window(pkg, model string, t, tmin, tmax float64) error {
 	if !(t >= tmin && t <= tmax) {
-		return Range(pkg, model, "temperature T", "K", t, tmin, tmax)
+		e := Range(pkg, model, "temperature T", "K", t, tmin, tmax)
+		e.msg = fmt.Sprintf("%s: %s: temperature T = %g K outside the model's window [%g, %g] K", pkg, model, t, tmin, tmax)
+		return e
 	}
 	return nil
 }
