@@ -101,3 +101,27 @@ func BenchmarkLifetime(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSeff is one Seff of each surface model family at the state of 1e16 cm^-3 p-type
+// silicon at Δn = 1e15 cm^-3 (default model set, 300 K). ConstantSeff and ConstantJ0s must
+// report 0 allocs/op; ExtendedSRH allocates its quadrature nodes once per call.
+func BenchmarkSeff(b *testing.B) {
+	s := mustBulk(b, defaultMaterial(b), 0, 1e16, 1e15)
+	for _, c := range []struct {
+		name string
+		m    Model
+	}{
+		{"ConstantSeff", ConstantSeff{S: 10}},
+		{"ConstantJ0s", ConstantJ0s{J0s: 10e-15}},
+		{"ExtendedSRH", benchModel(false)},
+	} {
+		b.Run(c.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for b.Loop() {
+				if _, err := c.m.Seff(s); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
