@@ -2,6 +2,7 @@ package recomb
 
 import (
 	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 
 	"fmt"
@@ -140,8 +141,8 @@ func (m IronBoron) Concentration(b *Bulk, dn, tauBefore, tauAfter float64) (floa
 
 // Crossover returns the excess density Δn in cm^-3 at which interstitial iron and the
 // iron–boron pair give the same lifetime in the p-type Bulk b, searched in [1e8, 1e19] cm^-3
-// by bisection on log Δn (a plain bracketed bisection is enough for this one-off root; gonum
-// has no scalar root finder). It returns an error if there is no crossover in that range.
+// by Brent's method on ln Δn (internal/roots) to 1e-13 in ln Δn. It returns an error if there
+// is no crossover in that range (errors.Is(err, pvrec.ErrOutOfRange)).
 func (m IronBoron) Crossover(b *Bulk) (float64, error) {
 	lo, hi := math.Log(1e8), math.Log(1e19)
 	flo, _, err := m.inverseDiff(b, math.Exp(lo))
@@ -156,17 +157,13 @@ func (m IronBoron) Crossover(b *Bulk) (float64, error) {
 		return 0, check.Rangef("IronBoron", "crossover Δn", math.NaN(), 1e8, 1e19,
 			"recomb: IronBoron: no crossover between Δn = 1e8 and 1e19 cm^-3")
 	}
-	for i := 0; i < 200 && hi-lo > 1e-13; i++ {
-		mid := 0.5 * (lo + hi)
-		f, _, err := m.inverseDiff(b, math.Exp(mid))
-		if err != nil {
-			return 0, err
-		}
-		if (f > 0) == (flo > 0) {
-			lo, flo = mid, f
-		} else {
-			hi = mid
-		}
+	f := func(x float64) (float64, error) {
+		d, _, err := m.inverseDiff(b, math.Exp(x))
+		return d, err
 	}
-	return math.Exp(0.5 * (lo + hi)), nil
+	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-13, 200)
+	if err != nil {
+		return 0, fmt.Errorf("recomb: IronBoron.Crossover: %w", err)
+	}
+	return math.Exp(x), nil
 }
