@@ -17,11 +17,7 @@ import (
 // (1990); value from memory), as in testdata/reference/cell.py.
 func fixedMaterial(t testing.TB) *silicon.Material {
 	t.Helper()
-	ms := silicon.DefaultModelSet()
-	ms.Statistics = silicon.Boltzmann
-	ms.Intrinsic = silicon.NewFixedNi()
-	ms.BGN = silicon.NoNarrowing{}
-	m, err := ms.At(300)
+	m, err := silicon.SimpleModelSet().At(300)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -46,11 +46,8 @@ func DefaultModels(t float64) (Models, error) {
 // radiative recombination. With these every local quantity has a closed form:
 // minority density ni²/N, lifetime 1/(Cn N²) (n-type) or 1/(Cp N²) (p-type).
 func SimpleModels() (Models, error) {
-	ms := silicon.DefaultModelSet()
+	ms := silicon.SimpleModelSet()
 	ms.Gap = silicon.NewFixedGap()
-	ms.Intrinsic = silicon.NewFixedNi()
-	ms.BGN = silicon.NoNarrowing{}
-	ms.Statistics = silicon.Boltzmann
 	ms.Mobility = silicon.NewMasetti1983()
 	m, err := ms.At(300)
 	if err != nil {

@@ -15,11 +15,7 @@ import (
 // Green1990 densities of states, M. A. Green, J. Appl. Phys. 67, 2944 (1990) (value from
 // memory).
 func newFixed() *silicon.Material {
-	ms := silicon.DefaultModelSet()
-	ms.Statistics = silicon.Boltzmann
-	ms.Intrinsic = silicon.NewFixedNi()
-	ms.BGN = silicon.NoNarrowing{}
-	m, err := ms.At(300)
+	m, err := silicon.SimpleModelSet().At(300)
 	if err != nil {
 		panic(err) // the default model set at 300 K is valid: a failure here is a bug
 	}

@@ -2,6 +2,7 @@ package silicon_test
 
 import (
 	"fmt"
+	"log"
 
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
@@ -100,4 +101,19 @@ func ExampleCouderc2014() {
 	// ni(250 K) = 6.82e+07 cm^-3
 	// ni(300 K) = 9.67e+09 cm^-3
 	// ni(350 K) = 3.51e+11 cm^-3
+}
+
+// The model set of hand calculations: ni,eff = ni = 1e10 cm^-3 at any doping, so n0 p0 = ni².
+func ExampleSimpleModelSet() {
+	si, err := silicon.SimpleModelSet().At(300)
+	if err != nil {
+		log.Fatal(err)
+	}
+	eq, err := si.Equilibrium(0, 1e16)
+	if err != nil {
+		log.Fatal(err)
+	}
+	fmt.Printf("p0 = %.3g, n0 = %.3g, ni,eff = %.3g cm^-3\n", eq.P0, eq.N0, eq.NiEff)
+	// Output:
+	// p0 = 1e+16, n0 = 1e+04, ni,eff = 1e+10 cm^-3
 }

@@ -12,11 +12,7 @@ import (
 // ni = 1e10 cm^-3 (FixedNi), no band-gap narrowing, Green 1990 DOS, complete ionisation.
 func refMaterial(tb testing.TB) *silicon.Material {
 	tb.Helper()
-	ms := silicon.DefaultModelSet()
-	ms.Statistics = silicon.Boltzmann
-	ms.Intrinsic = silicon.NewFixedNi()
-	ms.BGN = silicon.NoNarrowing{}
-	m, err := ms.At(300)
+	m, err := silicon.SimpleModelSet().At(300)
 	if err != nil {
 		tb.Fatal(err)
 	}
