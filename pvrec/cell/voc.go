@@ -51,8 +51,8 @@ func ImpliedVoc(b *recomb.Bulk, dn float64) (float64, error) {
 // Δn. It returns an error for a nil b, invalid voc, a voc that needs Δn > recomb.MaxExcess,
 // or an error of the material.
 func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
-	if b == nil {
-		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: bulk b is nil")
+	if b == nil || b.Material() == nil {
+		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: bulk b is nil or not built by recomb.NewBulk")
 	}
 	if math.IsNaN(voc) || math.IsInf(voc, 0) || voc < 0 {
 		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: implied voltage voc must be finite and >= 0 V, got %g", voc)
@@ -173,6 +173,9 @@ func J0FromVoc(voc, jsc, ideality float64, m *silicon.Material) (float64, error)
 		return 0, err
 	}
 	j0 := jsc / math.Expm1(voc/(ideality*m.Vt()))
+	if err := check.Result("cell: J0FromVoc", "J0", j0, "A/cm^2"); err != nil {
+		return 0, err
+	}
 	if !(j0 > 0) {
 		return 0, fmt.Errorf("cell: J0FromVoc: J0 underflows for voc = %g V, ideality %g at T = %g K", voc, ideality, m.T())
 	}

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"gonum.org/v1/gonum/unit/constant"
 )
@@ -34,15 +35,20 @@ type Base struct {
 
 // NewBase returns the Base of the uniformly doped bulk b with width w in cm, minority
 // lifetime tau in s, minority diffusivity d in cm²/s and rear recombination velocity s in
-// cm/s. NiEff and Doping are taken from b's equilibrium (NiEff = sqrt(n0 p0), Doping = the
-// majority density), so that NiEff²/Doping is the equilibrium minority density with band-gap
-// narrowing and degeneracy. The arguments are checked by J0.
+// cm/s (+Inf for an ohmic rear contact). NiEff and Doping are taken from b's equilibrium
+// (NiEff = sqrt(n0 p0), Doping = the majority density), so that NiEff²/Doping is the
+// equilibrium minority density with band-gap narrowing and degeneracy. It returns an error
+// for a nil or zero b or an invalid argument (as J0 checks them).
 func NewBase(b *recomb.Bulk, w, tau, d, s float64) (Base, error) {
 	if b == nil {
 		return Base{}, fmt.Errorf("j0: NewBase: bulk b is nil")
 	}
 	eq := b.Equilibrium()
-	return Base{NiEff: eq.NiEff, Doping: math.Max(eq.N0, eq.P0), Width: w, Tau: tau, D: d, S: s}, nil
+	base := Base{NiEff: eq.NiEff, Doping: math.Max(eq.N0, eq.P0), Width: w, Tau: tau, D: d, S: s}
+	if err := base.validate("NewBase", true); err != nil {
+		return Base{}, err
+	}
+	return base, nil
 }
 
 // String returns a short description, e.g. "Base(W=0.018 cm, τ=0.001 s, D=30 cm²/s, S=10 cm/s)".
@@ -58,12 +64,18 @@ func (b Base) validate(fn string, needS bool) error {
 		{"NiEff", "cm^-3", b.NiEff}, {"Doping", "cm^-3", b.Doping}, {"Width", "cm", b.Width},
 		{"Tau", "s", b.Tau}, {"D", "cm²/s", b.D},
 	} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) || f.v <= 0 {
-			return fmt.Errorf("j0: %s: %s must be finite and > 0 %s, got %g", fn, f.name, f.unit, f.v)
+		if !(f.v > 0) || math.IsInf(f.v, 0) || f.v > check.MaxMagnitude || f.v < check.MinPositive { // names on the error path only
+			return check.Positive("j0: Base."+fn, f.name, f.v, f.unit)
 		}
 	}
-	if needS && (math.IsNaN(b.S) || b.S < 0) {
-		return fmt.Errorf("j0: %s: rear recombination velocity S must be >= 0 cm/s (or +Inf), got %g", fn, b.S)
+	if b.NiEff > check.MaxDensity || b.Doping > check.MaxDensity {
+		if err := check.Density("j0: Base."+fn, "NiEff", b.NiEff); err != nil {
+			return err
+		}
+		return check.Density("j0: Base."+fn, "Doping", b.Doping)
+	}
+	if needS {
+		return check.NonNegativeOrInf("j0: Base."+fn, "rear recombination velocity S", b.S, "cm/s")
 	}
 	return nil
 }
@@ -87,7 +99,7 @@ func (b Base) J0() (float64, error) {
 	} else {
 		g = (r + th) / (1 + r*th)
 	}
-	return q * b.minority() * b.D / l * g, nil
+	return current("Base.J0", q*b.minority()*b.D/l*g)
 }
 
 // J0LongBase returns the long-base limit W >> L of J0 in A/cm^2, J0 = q (ni,eff²/N) D/L,
@@ -97,7 +109,7 @@ func (b Base) J0LongBase() (float64, error) {
 	if err := b.validate("J0LongBase", false); err != nil {
 		return 0, err
 	}
-	return q * b.minority() * math.Sqrt(b.D/b.Tau), nil
+	return current("Base.J0LongBase", q*b.minority()*math.Sqrt(b.D/b.Tau))
 }
 
 // J0ThinBase returns the thin-base limit W << L of J0 in A/cm^2,
@@ -112,7 +124,16 @@ func (b Base) J0ThinBase() (float64, error) {
 		return 0, err
 	}
 	if math.IsInf(b.S, 1) {
-		return q * b.minority() * b.D / b.Width, nil
+		return current("Base.J0ThinBase", q*b.minority()*b.D/b.Width)
 	}
-	return q * b.minority() * (b.S + b.Width/b.Tau) / (1 + b.S*b.Width/b.D), nil
+	return current("Base.J0ThinBase", q*b.minority()*(b.S+b.Width/b.Tau)/(1+b.S*b.Width/b.D))
+}
+
+// current returns a computed current density j in A/cm^2, or an error if it overflowed (NaN,
+// ±Inf or beyond check.MaxMagnitude); it formats only on the error path.
+func current(fn string, j float64) (float64, error) {
+	if math.IsNaN(j) || math.IsInf(j, 0) || math.Abs(j) > check.MaxMagnitude {
+		return 0, check.Result("j0: "+fn, "J0", j, "A/cm^2")
+	}
+	return j, nil
 }

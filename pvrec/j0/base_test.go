@@ -1,10 +1,12 @@
 package j0
 
 import (
+	"errors"
 	"math"
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
@@ -77,9 +79,15 @@ func TestBaseLimits(t *testing.T) {
 			t.Errorf("S=D/L, W=%g: J0 = %g, long-base %g", w, g, lb)
 		}
 	}
-	// Monotonic in S, and S = 1e300 (S L/D overflowing) equals S = +Inf.
+	// Monotonic in S up to the largest accepted S (check.MaxMagnitude = 1e100) and S = +Inf;
+	// an absurd finite S such as 1e300 is refused (pvrec.ErrOutOfRange).
+	b300 := base
+	b300.Width, b300.S = 0.018, 1e300
+	if _, err := b300.J0(); !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("S = 1e300: err = %v, want ErrOutOfRange", err)
+	}
 	last := 0.0
-	for _, s := range []float64{0, 1, 10, 100, 1e3, 1e4, 1e6, 1e300, math.Inf(1)} {
+	for _, s := range []float64{0, 1, 10, 100, 1e3, 1e4, 1e6, 1e100, math.Inf(1)} {
 		b := base
 		b.Width, b.S = 0.018, s
 		g, err := b.J0()

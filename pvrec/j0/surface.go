@@ -23,10 +23,11 @@ type Surface interface {
 // independent of the surface dopant density.
 type FixedS float64
 
-// Velocity returns s in cm/s, or an error if s is NaN or negative.
+// Velocity returns s in cm/s (+Inf for an ohmic contact), or an error if s is NaN, negative
+// or finite beyond check.MaxMagnitude.
 func (s FixedS) Velocity(ns float64) (float64, error) {
-	if math.IsNaN(float64(s)) || s < 0 {
-		return 0, fmt.Errorf("j0: FixedS: surface recombination velocity must be >= 0 cm/s (or +Inf), got %g", float64(s))
+	if err := check.NonNegativeOrInf("j0: FixedS", "surface recombination velocity", float64(s), "cm/s"); err != nil {
+		return 0, err
 	}
 	return float64(s), nil
 }
@@ -63,18 +64,20 @@ func (p PowerLawS) Velocity(ns float64) (float64, error) {
 	for _, f := range [...]struct {
 		name, unit string
 		v          float64
-		pos        bool
-	}{{"S1", "cm/s", p.S1, false}, {"N1", "cm^-3", p.N1, true}, {"Exp", "", p.Exp, false}, {"Max", "cm/s", p.Max, false}} {
-		if math.IsNaN(f.v) || math.IsInf(f.v, 0) || f.v < 0 || (f.pos && f.v == 0) {
-			return 0, fmt.Errorf("j0: PowerLawS: parameter %s = %g %s must be finite and >= 0 (N1 > 0)", f.name, f.v, f.unit)
+	}{{"S1", "cm/s", p.S1}, {"Exp", "", p.Exp}, {"Max", "cm/s", p.Max}} {
+		if err := check.NonNegative("j0: PowerLawS parameter", f.name, f.v, f.unit); err != nil {
+			return 0, err
 		}
+	}
+	if err := check.Positive("j0: PowerLawS parameter", "N1", p.N1, "cm^-3"); err != nil {
+		return 0, err
 	}
 	s := p.S1 * math.Pow(ns/p.N1, p.Exp)
 	if p.Max > 0 && s > p.Max {
 		s = p.Max
 	}
-	if math.IsInf(s, 0) {
-		return 0, fmt.Errorf("j0: PowerLawS: S overflows at ns = %g cm^-3", ns)
+	if math.IsNaN(s) || math.IsInf(s, 0) || s > check.MaxMagnitude {
+		return 0, check.Result("j0: PowerLawS", fmt.Sprintf("S at ns = %g cm^-3", ns), s, "cm/s")
 	}
 	return s, nil
 }
@@ -92,8 +95,21 @@ func (p PowerLawS) String() string {
 // to the Surface interface.
 type SurfaceFunc func(ns float64) (float64, error)
 
-// Velocity returns f(ns).
-func (f SurfaceFunc) Velocity(ns float64) (float64, error) { return f(ns) }
+// Velocity returns f(ns) in cm/s (+Inf allowed, an ohmic contact), or an error for a nil f,
+// an error of f, or a value of f that is NaN, negative or finite beyond check.MaxMagnitude.
+func (f SurfaceFunc) Velocity(ns float64) (float64, error) {
+	if f == nil {
+		return 0, fmt.Errorf("j0: SurfaceFunc is nil")
+	}
+	v, err := f(ns)
+	if err != nil {
+		return 0, err
+	}
+	if err := check.NonNegativeOrInf("j0: SurfaceFunc", fmt.Sprintf("S(ns = %g cm^-3)", ns), v, "cm/s"); err != nil {
+		return 0, err
+	}
+	return v, nil
+}
 
 // String returns "SurfaceFunc".
 func (SurfaceFunc) String() string { return "SurfaceFunc" }

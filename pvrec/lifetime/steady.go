@@ -22,13 +22,17 @@ const MinExcess = 1e-6
 // (about 0.04 A/cm^2 for silicon; common practice, no source) and the steady-state excess
 // carrier density of a lifetime sample under uniform generation.
 func GenerationRate(jph, w float64) (float64, error) {
-	if math.IsNaN(jph) || math.IsInf(jph, 0) || jph < 0 {
-		return 0, fmt.Errorf("lifetime: GenerationRate: current density jph must be finite and >= 0 A/cm^2, got %g", jph)
+	if err := check.NonNegative("lifetime: GenerationRate", "current density jph", jph, "A/cm^2"); err != nil {
+		return 0, err
 	}
 	if err := check.Positive("lifetime: GenerationRate", "thickness w", w, "cm"); err != nil {
 		return 0, err
 	}
-	return jph / (silicon.ElementaryCharge * w), nil
+	g := jph / (silicon.ElementaryCharge * w)
+	if err := check.Result("lifetime: GenerationRate", "G", g, "cm^-3 s^-1"); err != nil {
+		return 0, err
+	}
+	return g, nil
 }
 
 // SteadyStateExcess returns the excess carrier density Δn in cm^-3 at which recombination

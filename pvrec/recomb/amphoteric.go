@@ -47,7 +47,7 @@ func (m Amphoteric) Rate(s State) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return s.Excess * (fp/(m.TauP1*n11+m.TauN1*s.P) + f0/(m.TauP2*n12+m.TauN2*s.P)), nil
+	return rate("Amphoteric", s.Excess*(fp/(m.TauP1*n11+m.TauN1*s.P)+f0/(m.TauP2*n12+m.TauN2*s.P)))
 }
 
 // Fractions returns the steady-state fractions of the defect in its positive (f+), neutral

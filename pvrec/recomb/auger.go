@@ -73,7 +73,7 @@ func (m Richter2012) Rate(s State) (float64, error) {
 	geeh := 1 + m.Geeh*(1-math.Tanh(powPos(s.N0/m.N0eeh, m.Eeeh)))
 	gehh := 1 + m.Gehh*(1-math.Tanh(powPos(s.P0/m.N0ehh, m.Eehh)))
 	c := m.Cn*geeh*s.N0 + m.Cp*gehh*s.P0 + m.Ca*powPos(s.Dn, m.CaExp)
-	return c * s.Excess, nil
+	return rate("Richter2012", c*s.Excess)
 }
 
 func (m Richter2012) validate() error {
@@ -143,7 +143,7 @@ func (m KerrCuevas2002) Rate(s State) (float64, error) {
 		return 0, err
 	}
 	c := m.Cn*powPos(s.N0, m.En) + m.Cp*powPos(s.P0, m.Ep) + m.Ca*powPos(s.Dn, m.Ea)
-	return c * s.Excess, nil
+	return rate("KerrCuevas2002", c*s.Excess)
 }
 
 // Altermatt1997 is the Coulomb-enhanced Auger recombination of lowly injected silicon at 300 K
@@ -217,7 +217,7 @@ func (m Altermatt1997) Rate(s State) (float64, error) {
 	}
 	geeh := 1 + m.Geeh*(1-math.Tanh(powPos(s.N0/m.N0eeh, m.Eeeh)))
 	gehh := 1 + m.Gehh*(1-math.Tanh(powPos(s.P0/m.N0ehh, m.Eehh)))
-	return (m.Cn*geeh*s.N0 + m.Cp*gehh*s.P0) * s.Excess, nil
+	return rate("Altermatt1997", (m.Cn*geeh*s.N0+m.Cp*gehh*s.P0)*s.Excess)
 }
 
 // DziewiorSchmid1977 is Auger recombination with the constant coefficients of J. Dziewior and
@@ -275,7 +275,7 @@ func constantAuger(model string, cn, cp float64, s State) (float64, error) {
 		}
 		return 0, check.NonNegative("recomb: "+model, "Cp", cp, "cm⁶/s")
 	}
-	return (cn*s.N + cp*s.P) * s.Excess, nil
+	return rate(model, (cn*s.N+cp*s.P)*s.Excess)
 }
 
 // powPos returns x^a for finite x >= 0 and finite a > 0 (0 for x = 0) as exp(a ln x). The

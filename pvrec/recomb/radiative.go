@@ -93,7 +93,7 @@ func (m Trupke2003) Rate(s State) (float64, error) {
 		}
 		b *= rel
 	}
-	return b * s.Excess, nil
+	return rate("Trupke2003", b*s.Excess)
 }
 
 // ConstantRadiative is band-to-band radiative recombination with a constant coefficient B,
@@ -125,7 +125,7 @@ func (m ConstantRadiative) Rate(s State) (float64, error) {
 	if err := checkEscape("ConstantRadiative", m.EscapeFraction); err != nil {
 		return 0, err
 	}
-	return m.B * m.EscapeFraction * s.Excess, nil
+	return rate("ConstantRadiative", m.B*m.EscapeFraction*s.Excess)
 }
 
 func checkEscape(model string, f float64) error {

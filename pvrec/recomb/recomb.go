@@ -43,7 +43,11 @@ func Lifetime(m Mechanism, s State) (float64, error) {
 		return 0, fmt.Errorf("recomb: Lifetime: %s gives rate R = %g cm^-3 s^-1 at Δn = %g cm^-3; want finite and > 0",
 			name(m), r, s.Dn)
 	}
-	return s.Dn / r, nil
+	tau := s.Dn / r
+	if math.IsInf(tau, 0) || tau > check.MaxMagnitude { // a rate too small to give a physical lifetime
+		return 0, check.Result("recomb: Lifetime of "+name(m), "τ", tau, "s")
+	}
+	return tau, nil
 }
 
 // Sum is the sum of independent mechanisms, itself a Mechanism: the effective bulk
@@ -63,7 +67,7 @@ func (m Sum) Rate(s State) (float64, error) {
 		}
 		r += ri
 	}
-	return r, nil
+	return rate("Sum", r)
 }
 
 // String returns the names of the mechanisms joined by " + ", e.g.
@@ -112,7 +116,7 @@ func (m Intrinsic) Rate(s State) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return ra + rr, nil
+	return rate("Intrinsic", ra+rr)
 }
 
 // String returns "Intrinsic(Richter2012 + Trupke2003)" with the parts' names.
@@ -142,5 +146,20 @@ func DiffusionLength(tau, d float64) (float64, error) {
 	if err := check.Positive("recomb: DiffusionLength", "diffusivity d", d, "cm²/s"); err != nil {
 		return 0, err
 	}
+	if math.IsInf(tau, 1) {
+		return math.Inf(1), nil
+	}
+	if err := check.Positive("recomb: DiffusionLength", "lifetime tau", tau, "s"); err != nil {
+		return 0, err
+	}
 	return math.Sqrt(d * tau), nil
+}
+
+// rate returns r, or an error if the rate of model overflowed (NaN, ±Inf or beyond
+// check.MaxMagnitude): the last check of every Rate. It formats only on the error path.
+func rate(model string, r float64) (float64, error) {
+	if math.IsNaN(r) || math.IsInf(r, 0) || math.Abs(r) > check.MaxMagnitude {
+		return 0, check.Result("recomb: "+model, "rate R", r, "cm^-3 s^-1")
+	}
+	return r, nil
 }

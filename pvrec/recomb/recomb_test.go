@@ -466,7 +466,7 @@ func TestBadInput(t *testing.T) {
 	s := mustState(t, b, 1e14)
 	nan := math.NaN()
 	hot := s
-	hot.T = 350
+	hot.T, hot.Vt = 350, silicon.BoltzmannEV*350 // a consistent hand-made state outside the 290–310 K window
 	bad := s
 	bad.Dn = nan
 	tests := []struct {

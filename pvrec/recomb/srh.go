@@ -151,7 +151,7 @@ func (m SRH) Rate(s State) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return s.Excess / (m.TauP0*(s.N+n1) + m.TauN0*(s.P+p1)), nil
+	return rate("SRH", s.Excess/(m.TauP0*(s.N+n1)+m.TauN0*(s.P+p1)))
 }
 
 // SRHDefect is Shockley–Read–Hall recombination through a single defect level given by its
@@ -198,7 +198,16 @@ func (d SRHDefect) Taus(m *silicon.Material) (tauN0, tauP0 float64, err error) {
 	if err != nil {
 		return 0, 0, fmt.Errorf("recomb: SRHDefect %v: %w", d, err)
 	}
-	return 1 / (d.SigmaN * ve * d.Nt), 1 / (d.SigmaP * vh * d.Nt), nil
+	tn, tp := 1/(d.SigmaN*ve*d.Nt), 1/(d.SigmaP*vh*d.Nt)
+	if d.Nt > 0 { // Nt = 0 gives +Inf, documented
+		if err := check.Result("recomb: SRHDefect.Taus", "τn0", tn, "s"); err != nil {
+			return 0, 0, err
+		}
+		if err := check.Result("recomb: SRHDefect.Taus", "τp0", tp, "s"); err != nil {
+			return 0, 0, err
+		}
+	}
+	return tn, tp, nil
 }
 
 // validate checks the parameters of d. It formats d's name only on the error path, so that
@@ -235,5 +244,5 @@ func (d SRHDefect) Rate(s State) (float64, error) {
 		return 0, err
 	}
 	// R = Nt·Excess / ((n + n1)/(σp vp) + (p + p1)/(σn vn)): no division by Nt, so Nt = 0 is fine.
-	return d.Nt * s.Excess / ((s.N+n1)/(d.SigmaP*vh) + (s.P+p1)/(d.SigmaN*ve)), nil
+	return rate("SRHDefect", d.Nt*s.Excess/((s.N+n1)/(d.SigmaP*vh)+(s.P+p1)/(d.SigmaN*ve)))
 }

@@ -1,9 +1,11 @@
 package recomb
 
 import (
+	"fmt"
 	"math"
 
 	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 // State is the quasi-neutral carrier state of uniformly doped silicon at one excess carrier
@@ -31,15 +33,25 @@ type State struct {
 }
 
 // Validate returns an error naming the first field of s that is NaN, infinite or out of
-// range: T, Vt, Nc, Nv, Ni and NiEff must be finite and > 0, the densities finite and >= 0,
-// and Excess finite. It does not allocate when s is valid. The zero State is invalid.
+// range: T finite, > 0 and at most the melting point of silicon; Vt = kT/q (to 1e-6
+// relative, so a Vt typed to five digits passes); Nc, Nv, Ni and NiEff > 0; every density
+// finite, >= 0 and at most the atomic density of silicon (5e22 cm^-3); Excess finite. It does not allocate when s is valid. The
+// zero State is invalid.
 func (s State) Validate() error {
+	if err := check.Temperature("recomb: State", s.T); err != nil {
+		return err
+	}
+	if vt := silicon.BoltzmannEV * s.T; !(math.Abs(s.Vt-vt) <= 1e-6*vt) {
+		return fmt.Errorf("recomb: State: Vt = %g V must be kT/q = %g V at T = %g K", s.Vt, vt, s.T)
+	}
 	for _, f := range [...]struct {
-		name, unit string
-		v          float64
-	}{{"T", "K", s.T}, {"Vt", "V", s.Vt}, {"Nc", "cm^-3", s.Nc}, {"Nv", "cm^-3", s.Nv},
-		{"Ni", "cm^-3", s.Ni}, {"NiEff", "cm^-3", s.NiEff}} {
-		if err := check.Positive("recomb: State", f.name, f.v, f.unit); err != nil {
+		name string
+		v    float64
+	}{{"Nc", s.Nc}, {"Nv", s.Nv}, {"Ni", s.Ni}, {"NiEff", s.NiEff}} {
+		if err := check.Positive("recomb: State", f.name, f.v, "cm^-3"); err != nil {
+			return err
+		}
+		if err := check.Density("recomb: State", f.name, f.v); err != nil {
 			return err
 		}
 	}
@@ -51,10 +63,7 @@ func (s State) Validate() error {
 			return err
 		}
 	}
-	if err := check.Finite("recomb: State", "Excess (n p − ni,eff²)", s.Excess, "cm^-6"); err != nil {
-		return err
-	}
-	return nil
+	return check.Finite("recomb: State", "Excess (n p − ni,eff²)", s.Excess, "cm^-6")
 }
 
 // PType reports whether the state is p-type (P0 >= N0).

@@ -5,6 +5,8 @@ import (
 	"math"
 	"sort"
 	"strings"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Energies of interface states are given as e = E − Ei in eV, measured from the effective
@@ -71,12 +73,51 @@ type UShapedDit struct {
 	WidthV float64 // characteristic energy of the valence-band tail, eV (> 0)
 }
 
-// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV (NaN for a non-positive width).
+// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV. The distribution describes the
+// gap: more than ditEdgeMargin = 0.5 eV outside [Ev, Ec] it keeps its value there, so that it
+// never overflows (the integral of ExtendedSRH stays within a few kT of the edges). It returns
+// 0 for malformed parameters, which Validate reports (ExtendedSRH calls it).
 func (m UShapedDit) Density(e float64) float64 {
-	if !(m.WidthC > 0) || !(m.WidthV > 0) {
-		return math.NaN()
+	if m.Validate() != nil {
+		return 0
 	}
+	e = math.Max(m.Ev-ditEdgeMargin, math.Min(m.Ec+ditEdgeMargin, e))
 	return m.Mid + m.TailC*math.Exp((e-m.Ec)/m.WidthC) + m.TailV*math.Exp((m.Ev-e)/m.WidthV)
+}
+
+// ditEdgeMargin is how far beyond its band edges, in eV, UShapedDit follows its formula.
+const ditEdgeMargin = 0.5
+
+// minTailWidth is the narrowest tail UShapedDit accepts, eV: 1 meV, far below kT at any
+// temperature of interest (our bound, so that exp((e − Ec)/WidthC) cannot overflow).
+const minTailWidth = 1e-3
+
+// Validate returns an error unless the densities are finite and >= 0, the widths finite and
+// at least 1 meV, and Ev < Ec.
+func (m UShapedDit) Validate() error {
+	for _, f := range [...]struct {
+		name string
+		v    float64
+	}{{"Mid", m.Mid}, {"TailC", m.TailC}, {"TailV", m.TailV}} {
+		if err := check.NonNegative("surface: UShapedDit", f.name, f.v, "cm^-2 eV^-1"); err != nil {
+			return err
+		}
+	}
+	for _, f := range [...]struct {
+		name string
+		v    float64
+	}{{"WidthC", m.WidthC}, {"WidthV", m.WidthV}} {
+		if err := check.Positive("surface: UShapedDit", f.name, f.v, "eV"); err != nil {
+			return err
+		}
+		if f.v < minTailWidth {
+			return check.Range("surface", "UShapedDit", f.name, "eV", f.v, minTailWidth, math.Inf(1))
+		}
+	}
+	if !(m.Ev < m.Ec) || math.IsInf(m.Ec-m.Ev, 0) {
+		return fmt.Errorf("surface: UShapedDit: band edges must be finite with Ev < Ec, got Ev = %g, Ec = %g eV", m.Ev, m.Ec)
+	}
+	return nil
 }
 
 // Breakpoints returns nil: the exponential tails are smooth for the integration rule.
@@ -99,13 +140,25 @@ type GaussianDit struct {
 	Width float64 // standard deviation, eV (> 0)
 }
 
-// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV (NaN for a non-positive width).
+// Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV, or 0 for malformed parameters,
+// which Validate reports (ExtendedSRH calls it).
 func (m GaussianDit) Density(e float64) float64 {
-	if !(m.Width > 0) {
-		return math.NaN()
+	if m.Validate() != nil {
+		return 0
 	}
 	z := (e - m.E0) / m.Width
 	return m.Peak * math.Exp(-0.5*z*z)
+}
+
+// Validate returns an error unless Peak is finite and >= 0, E0 finite and Width finite and > 0.
+func (m GaussianDit) Validate() error {
+	if err := check.NonNegative("surface: GaussianDit", "Peak", m.Peak, "cm^-2 eV^-1"); err != nil {
+		return err
+	}
+	if err := check.Finite("surface: GaussianDit", "E0", m.E0, "eV"); err != nil {
+		return err
+	}
+	return check.Positive("surface: GaussianDit", "Width", m.Width, "eV")
 }
 
 // Breakpoints returns E0 + k·Width for k = −8..8, so that panels are no wider than Width
@@ -146,10 +199,10 @@ func (m TabulatedDit) Validate() error {
 }
 
 // Density returns the interpolated Dit in cm^-2 eV^-1 at e = E − Ei in eV, 0 outside the
-// table, and NaN for a malformed table.
+// table, and 0 for a malformed table (Validate reports it; ExtendedSRH calls Validate).
 func (m TabulatedDit) Density(e float64) float64 {
 	if len(m.E) < 2 || len(m.E) != len(m.D) {
-		return math.NaN()
+		return 0
 	}
 	if e < m.E[0] || e > m.E[len(m.E)-1] {
 		return 0
@@ -178,7 +231,7 @@ func (s DitSum) Density(e float64) float64 {
 	var sum float64
 	for _, m := range s {
 		if m == nil {
-			return math.NaN()
+			return 0 // Validate reports the nil member
 		}
 		sum += m.Density(e)
 	}
@@ -258,12 +311,12 @@ func (m TabulatedSigma) Validate() error {
 	return validateTable("TabulatedSigma", "S", "cm^2", m.E, m.S, true)
 }
 
-// Sigma returns the interpolated cross section in cm^2 at e = E − Ei in eV (NaN for a
-// malformed table).
+// Sigma returns the interpolated cross section in cm^2 at e = E − Ei in eV (0 for a
+// malformed table, which Validate reports; ExtendedSRH calls Validate).
 func (m TabulatedSigma) Sigma(e float64) float64 {
 	n := len(m.E)
 	if n < 2 || n != len(m.S) {
-		return math.NaN()
+		return 0
 	}
 	switch {
 	case e <= m.E[0]:
@@ -308,7 +361,7 @@ func validateTable(model, vname, unit string, e, v []float64, positive bool) err
 		if i > 0 && !(e[i] > e[i-1]) {
 			return fmt.Errorf("surface: %s: energies must increase strictly (E[%d] = %g after %g eV)", model, i, e[i], e[i-1])
 		}
-		bad := math.IsNaN(v[i]) || math.IsInf(v[i], 0) || v[i] < 0 || (positive && v[i] == 0)
+		bad := math.IsNaN(v[i]) || math.IsInf(v[i], 0) || v[i] < 0 || (positive && v[i] == 0) || v[i] > check.MaxMagnitude
 		if bad {
 			want := ">= 0"
 			if positive {

@@ -107,11 +107,27 @@ func TestTableValidation(t *testing.T) {
 	if _, err := NewTabulatedDit([]float64{0, 1}, []float64{0, 0}); err != nil {
 		t.Errorf("zero Dit rejected: %v", err)
 	}
-	if !math.IsNaN((TabulatedDit{}).Density(0)) || !math.IsNaN((TabulatedSigma{}).Sigma(0)) {
-		t.Error("empty tables must give NaN")
+	// Malformed distributions evaluate to 0 (never NaN) and their Validate reports them, which
+	// ExtendedSRH calls before integrating.
+	if (TabulatedDit{}).Density(0) != 0 || (TabulatedSigma{}).Sigma(0) != 0 {
+		t.Error("empty tables must give 0")
 	}
-	if !math.IsNaN((UShapedDit{}).Density(0)) || !math.IsNaN((DitSum{nil}).Density(0)) {
-		t.Error("zero widths or nil members must give NaN")
+	if (UShapedDit{}).Density(0) != 0 || (DitSum{nil}).Density(0) != 0 || (GaussianDit{}).Density(0) != 0 {
+		t.Error("zero widths or nil members must give 0")
+	}
+	for name, v := range map[string]interface{ Validate() error }{
+		"empty TabulatedDit": TabulatedDit{}, "empty TabulatedSigma": TabulatedSigma{},
+		"zero UShapedDit": UShapedDit{}, "nil DitSum member": DitSum{nil}, "zero GaussianDit": GaussianDit{},
+		"tail of 0.1 meV": UShapedDit{Mid: 1e10, Ec: 0.56, Ev: -0.56, WidthC: 1e-4, WidthV: 0.1},
+	} {
+		if v.Validate() == nil {
+			t.Errorf("%s: Validate accepts it", name)
+		}
+	}
+	// Far outside the gap the U shape stops growing instead of overflowing.
+	u := UShapedDit{Mid: 1e10, TailC: 1e13, TailV: 1e13, Ec: 0.56, Ev: -0.56, WidthC: 0.1, WidthV: 0.1}
+	if d := u.Density(300); math.IsInf(d, 0) || d != u.Density(0.56+ditEdgeMargin) {
+		t.Errorf("U-shaped Dit at 300 eV = %g", d)
 	}
 }
 

@@ -443,7 +443,7 @@ func (m ExtendedSRH) solve(s recomb.State, maxPanel float64, order int) (Result,
 	r.J0s = silicon.ElementaryCharge * r.Us * s.NiEff * s.NiEff / np
 	r.Regime = regime(y, ns, ps, s.PType())
 	for _, v := range [...]float64{r.Us, r.Seff, r.J0s, r.Ns, r.Ps} {
-		if math.IsNaN(v) || math.IsInf(v, 0) {
+		if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > check.MaxMagnitude {
 			return Result{}, fmt.Errorf("surface: non-finite result (Us = %g cm^-2 s^-1, ns = %g, ps = %g cm^-3) at Qf = %g cm^-2, Δn = %g cm^-3: %w",
 				r.Us, r.Ns, r.Ps, m.Qf, s.Dn, check.ErrNoConvergence)
 		}

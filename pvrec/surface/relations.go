@@ -34,7 +34,11 @@ func SeffFromJ0s(j0s float64, s recomb.State) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return j0s * x / (silicon.ElementaryCharge * s.NiEff * s.NiEff * s.Dn), nil
+	v := j0s * x / (silicon.ElementaryCharge * s.NiEff * s.NiEff * s.Dn)
+	if err := check.Result("surface: SeffFromJ0s", "Seff", v, "cm/s"); err != nil {
+		return 0, err
+	}
+	return v, nil
 }
 
 // J0sFromSeff returns the surface saturation current density J0s in A/cm^2 of a surface with
@@ -50,7 +54,11 @@ func J0sFromSeff(seff float64, s recomb.State) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return silicon.ElementaryCharge * seff * s.NiEff * s.NiEff * s.Dn / x, nil
+	v := silicon.ElementaryCharge * seff * s.NiEff * s.NiEff * s.Dn / x
+	if err := check.Result("surface: J0sFromSeff", "J0s", v, "A/cm^2"); err != nil {
+		return 0, err
+	}
+	return v, nil
 }
 
 // Model is a surface whose recombination is described by an effective surface recombination

@@ -43,7 +43,7 @@ func Lifetime(w, d, s1, s2 float64) (float64, error) {
 	if x == 0 {
 		return math.Inf(1), nil
 	}
-	return w * w / (d * x * x), nil
+	return seconds("Lifetime", w*w/(d*x*x))
 }
 
 // EffectiveLifetime returns the effective lifetime τeff in s of the fundamental mode,
@@ -57,7 +57,7 @@ func EffectiveLifetime(tauBulk, w, d, s1, s2 float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return 1 / (1/tauBulk + 1/ts), nil
+	return seconds("EffectiveLifetime", 1/(1/tauBulk+1/ts))
 }
 
 // LifetimeSproul returns the approximation of A. B. Sproul, J. Appl. Phys. 76, 2851
@@ -75,7 +75,10 @@ func LifetimeSproul(w, d, s float64) (float64, error) {
 	if err := checkWafer(w, d, s, s); err != nil {
 		return 0, err
 	}
-	return w/(2*s) + w*w/(d*math.Pi*math.Pi), nil
+	if s == 0 {
+		return math.Inf(1), nil
+	}
+	return seconds("LifetimeSproul", w/(2*s)+w*w/(d*math.Pi*math.Pi))
 }
 
 // LifetimeLowS returns the low-S limit of the surface-limited lifetime,
@@ -94,7 +97,10 @@ func LifetimeLowS(w, s1, s2 float64) (float64, error) {
 	if err := check.NonNegative("surface", "s2", s2, "cm/s"); err != nil {
 		return 0, err
 	}
-	return w / (s1 + s2), nil
+	if s1+s2 == 0 {
+		return math.Inf(1), nil
+	}
+	return seconds("LifetimeLowS", w/(s1+s2))
 }
 
 // LifetimeDiffusionLimit returns the limit of the surface-limited lifetime for
@@ -104,7 +110,7 @@ func LifetimeDiffusionLimit(w, d float64) (float64, error) {
 	if err := checkWafer(w, d, 0, 0); err != nil {
 		return 0, err
 	}
-	return w * w / (d * math.Pi * math.Pi), nil
+	return seconds("LifetimeDiffusionLimit", w*w/(d*math.Pi*math.Pi))
 }
 
 // checkWafer validates the arguments of the wafer-lifetime functions.
@@ -174,4 +180,13 @@ func fundamentalRoot(w, d, s1, s2 float64) (float64, error) {
 		return 0, fmt.Errorf("surface: fundamental mode for w = %g cm, d = %g cm^2/s, s1 = %g, s2 = %g cm/s: %w", w, d, s1, s2, err)
 	}
 	return x, nil
+}
+
+// seconds returns a computed lifetime v in s, or an error if it overflowed (see
+// check.Result); it formats only on the error path.
+func seconds(fn string, v float64) (float64, error) {
+	if math.IsNaN(v) || math.IsInf(v, 0) || math.Abs(v) > check.MaxMagnitude {
+		return 0, check.Result("surface: "+fn, "lifetime", v, "s")
+	}
+	return v, nil
 }

@@ -77,51 +77,129 @@ type convergenceError struct{ msg string }
 func (e *convergenceError) Error() string        { return e.msg }
 func (e *convergenceError) Is(target error) bool { return target == ErrNoConvergence }
 
-// Finite returns an error unless v is finite.
+// Physical bounds shared by every validator.
+const (
+	// MaxMagnitude bounds every quantity pvrec takes or returns, in the field's units: none comes
+	// near it (the largest, n·p products at the highest injection, stay below 1e45 cm^-6), so a
+	// value beyond it is an absurd input or an overflow and is refused with a RangeError.
+	MaxMagnitude = 1e100
+	// MinPositive is the smallest positive value Positive accepts, the reciprocal of
+	// MaxMagnitude: a thickness, time constant or diffusivity below it makes results overflow.
+	MinPositive = 1 / MaxMagnitude
+	// MaxDensity is the largest carrier, dopant or defect density accepted, in cm^-3: the
+	// atomic density of silicon, 5.0e22 cm^-3 (S. M. Sze and K. K. Ng, Physics of
+	// Semiconductor Devices, 3rd ed., Wiley 2007, Appendix; value from memory). No density in
+	// the crystal can exceed it.
+	MaxDensity = 5.0e22
+	// MaxTemperature is the largest temperature accepted, in K: the melting point of silicon,
+	// 1687 K (value from memory). Every model has a narrower window of its own.
+	MaxTemperature = 1687
+)
+
+// magnitude returns a RangeError if |v| > MaxMagnitude (v finite).
+func magnitude(ctx, name string, v float64, unit string) error {
+	if math.Abs(v) > MaxMagnitude {
+		e := Range(ctx, name, name, unit, v, -MaxMagnitude, MaxMagnitude)
+		e.Model = ""
+		e.msg = fmt.Sprintf("%s: %s = %g%s is beyond any physical value (|v| > %g)", ctx, name, v, spaced(unit), float64(MaxMagnitude))
+		return e
+	}
+	return nil
+}
+
+// Finite returns an error unless v is finite, with |v| <= MaxMagnitude.
 func Finite(ctx, name string, v float64, unit string) error {
 	if math.IsNaN(v) || math.IsInf(v, 0) {
 		return fmt.Errorf("%s: %s must be finite%s, got %g", ctx, name, spaced(unit), v)
 	}
-	return nil
+	return magnitude(ctx, name, v, unit)
 }
 
-// Positive returns an error unless v is finite and > 0.
+// Positive returns an error unless v is finite and > 0, with MinPositive <= v <= MaxMagnitude.
 func Positive(ctx, name string, v float64, unit string) error {
 	if !(v > 0) || math.IsInf(v, 0) {
 		return fmt.Errorf("%s: %s must be finite and > 0%s, got %g", ctx, name, spaced(unit), v)
 	}
-	return nil
+	if v < MinPositive {
+		e := Range(ctx, name, name, unit, v, MinPositive, MaxMagnitude)
+		e.Model = ""
+		e.msg = fmt.Sprintf("%s: %s = %g%s is below any physical value (< %g)", ctx, name, v, spaced(unit), float64(MinPositive))
+		return e
+	}
+	return magnitude(ctx, name, v, unit)
 }
 
-// NonNegative returns an error unless v is finite and >= 0.
+// NonNegative returns an error unless v is finite and >= 0, with v <= MaxMagnitude.
 func NonNegative(ctx, name string, v float64, unit string) error {
 	if !(v >= 0) || math.IsInf(v, 0) {
 		return fmt.Errorf("%s: %s must be finite and >= 0%s, got %g", ctx, name, spaced(unit), v)
 	}
-	return nil
+	return magnitude(ctx, name, v, unit)
 }
 
-// PositiveOrInf returns an error unless v > 0 (+Inf allowed, e.g. a perfect bulk lifetime).
+// PositiveOrInf returns an error unless v > 0 (+Inf allowed, e.g. a perfect bulk lifetime;
+// a finite v must be in [MinPositive, MaxMagnitude]).
 func PositiveOrInf(ctx, name string, v float64, unit string) error {
 	if !(v > 0) {
 		return fmt.Errorf("%s: %s must be > 0%s (or +Inf), got %g", ctx, name, spaced(unit), v)
 	}
-	return nil
+	if math.IsInf(v, 1) {
+		return nil
+	}
+	return Positive(ctx, name, v, unit)
 }
 
-// NonNegativeOrInf returns an error unless v >= 0 (+Inf allowed, e.g. an ohmic contact's S).
+// NonNegativeOrInf returns an error unless v >= 0 (+Inf allowed, e.g. an ohmic contact's S;
+// a finite v must be <= MaxMagnitude).
 func NonNegativeOrInf(ctx, name string, v float64, unit string) error {
 	if !(v >= 0) {
 		return fmt.Errorf("%s: %s must be >= 0%s (or +Inf), got %g", ctx, name, spaced(unit), v)
 	}
+	if math.IsInf(v, 1) {
+		return nil
+	}
+	return magnitude(ctx, name, v, unit)
+}
+
+// Density returns an error unless v is a finite, non-negative density in cm^-3 no larger
+// than MaxDensity (a RangeError above it).
+func Density(ctx, name string, v float64) error {
+	if err := NonNegative(ctx, name, v, "cm^-3"); err != nil {
+		return err
+	}
+	if v > MaxDensity {
+		e := Range(ctx, name, name, "cm^-3", v, 0, MaxDensity)
+		e.Model = ""
+		e.msg = fmt.Sprintf("%s: %s = %g cm^-3 exceeds the atomic density of silicon, %g cm^-3", ctx, name, v, float64(MaxDensity))
+		return e
+	}
 	return nil
 }
 
-// Density returns an error unless v is a finite, non-negative density in cm^-3.
-func Density(ctx, name string, v float64) error { return NonNegative(ctx, name, v, "cm^-3") }
+// Temperature returns an error unless t is a finite, positive temperature in K no higher
+// than MaxTemperature (a RangeError above it).
+func Temperature(ctx string, t float64) error {
+	if !(t > 0) || math.IsInf(t, 0) {
+		return fmt.Errorf("%s: temperature T must be finite and > 0 K, got %g", ctx, t)
+	}
+	if t > MaxTemperature {
+		e := Range(ctx, "temperature T", "temperature T", "K", t, 0, MaxTemperature)
+		e.Model = ""
+		e.msg = fmt.Sprintf("%s: temperature T = %g K is above the melting point of silicon, %g K", ctx, t, float64(MaxTemperature))
+		return e
+	}
+	return nil
+}
 
-// Temperature returns an error unless t is a finite, positive temperature in K.
-func Temperature(ctx string, t float64) error { return Positive(ctx, "temperature T", t, "K") }
+// Result returns an error unless a computed result v is finite with |v| <= MaxMagnitude: the
+// last check of a function whose valid inputs could still overflow ("ctx: name = +Inf ...
+// overflows"). It matches pvrec.ErrOutOfRange when v is finite but too large.
+func Result(ctx, name string, v float64, unit string) error {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return fmt.Errorf("%s: %s = %g%s: the computation overflows for these inputs", ctx, name, v, spaced(unit))
+	}
+	return magnitude(ctx, name, v, unit)
+}
 
 // Window returns a RangeError unless tmin <= t <= tmax: the temperature window of a model,
 // "pkg: model: temperature T = 350 K outside the model's window [290, 310] K".

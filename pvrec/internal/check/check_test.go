@@ -69,3 +69,31 @@ func TestValidatorsDoNotAllocate(t *testing.T) {
 		t.Errorf("validators allocate %v times on valid input", n)
 	}
 }
+
+func TestPhysicalBounds(t *testing.T) {
+	for _, c := range []struct {
+		name    string
+		err     error
+		ok, rng bool
+	}{
+		{"Positive 1e300", Positive("p", "x", 1e300, "s"), false, true},
+		{"Positive 1e-300", Positive("p", "x", 1e-300, "s"), false, true},
+		{"Positive 1e-99", Positive("p", "x", 1e-99, "s"), true, false},
+		{"NonNegative 1e-300", NonNegative("p", "x", 1e-300, ""), true, false},
+		{"NonNegative 1e101", NonNegative("p", "x", 1e101, ""), false, true},
+		{"Finite -1e300", Finite("p", "x", -1e300, ""), false, true},
+		{"Density 5e22", Density("p", "Nd", 5e22), true, false},
+		{"Density 6e22", Density("p", "Nd", 6e22), false, true},
+		{"Temperature 1687", Temperature("p", 1687), true, false},
+		{"Temperature 2000", Temperature("p", 2000), false, true},
+		{"PositiveOrInf 1e300", PositiveOrInf("p", "x", 1e300, "s"), false, true},
+		{"NonNegativeOrInf Inf", NonNegativeOrInf("p", "x", math.Inf(1), ""), true, false},
+		{"Result Inf", Result("p", "x", math.Inf(1), ""), false, false},
+		{"Result 1e200", Result("p", "x", 1e200, ""), false, true},
+		{"Result 1e40", Result("p", "x", 1e40, ""), true, false},
+	} {
+		if (c.err == nil) != c.ok || errors.Is(c.err, ErrOutOfRange) != c.rng {
+			t.Errorf("%s: err = %v, want ok %v, range error %v", c.name, c.err, c.ok, c.rng)
+		}
+	}
+}
