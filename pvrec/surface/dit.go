@@ -179,47 +179,58 @@ func (m GaussianDit) String() string {
 // TabulatedDit is an interface-state density given at energies E (E − Ei, eV, strictly
 // increasing, at least two) with densities D (cm^-2 eV^-1, finite, >= 0), such as a measured
 // Dit(E). Between nodes it is interpolated linearly; outside [E[0], E[len−1]] it is zero.
-// Make one with NewTabulatedDit, which checks and copies the table; a literal is checked when
-// ExtendedSRH uses it.
+// Make one with NewTabulatedDit, which checks and copies the table; the table cannot be
+// changed afterwards (Energies, Densities and Breakpoints return copies), so a model holding
+// it is immune to later changes of the caller's slices. The zero TabulatedDit is empty: its
+// Validate reports it, and its Density is 0.
 type TabulatedDit struct {
-	E []float64 // energies E − Ei, eV, strictly increasing
-	D []float64 // interface-state densities at E, cm^-2 eV^-1
+	e []float64 // energies E − Ei, eV, strictly increasing
+	d []float64 // interface-state densities at E, cm^-2 eV^-1
 }
 
 // NewTabulatedDit returns a TabulatedDit with copies of e and d, or an error naming the first
 // bad entry.
 func NewTabulatedDit(e, d []float64) (TabulatedDit, error) {
-	m := TabulatedDit{E: append([]float64(nil), e...), D: append([]float64(nil), d...)}
-	return m, m.Validate()
+	m := TabulatedDit{e: append([]float64(nil), e...), d: append([]float64(nil), d...)}
+	if err := m.Validate(); err != nil {
+		return TabulatedDit{}, err
+	}
+	return m, nil
 }
+
+// Energies returns a copy of the table's energies E − Ei in eV.
+func (m TabulatedDit) Energies() []float64 { return append([]float64(nil), m.e...) }
+
+// Densities returns a copy of the table's densities in cm^-2 eV^-1.
+func (m TabulatedDit) Densities() []float64 { return append([]float64(nil), m.d...) }
 
 // Validate returns an error unless the table is well formed (see TabulatedDit).
 func (m TabulatedDit) Validate() error {
-	return validateTable("TabulatedDit", "D", "cm^-2 eV^-1", m.E, m.D, false)
+	return validateTable("TabulatedDit", "D", "cm^-2 eV^-1", m.e, m.d, false)
 }
 
 // Density returns the interpolated Dit in cm^-2 eV^-1 at e = E − Ei in eV, 0 outside the
 // table, and 0 for a malformed table (Validate reports it; ExtendedSRH calls Validate).
 func (m TabulatedDit) Density(e float64) float64 {
-	if len(m.E) < 2 || len(m.E) != len(m.D) {
+	if len(m.e) < 2 || len(m.e) != len(m.d) {
 		return 0
 	}
-	if e < m.E[0] || e > m.E[len(m.E)-1] {
+	if e < m.e[0] || e > m.e[len(m.e)-1] {
 		return 0
 	}
-	i, t := locate(m.E, e)
-	return m.D[i] + t*(m.D[i+1]-m.D[i])
+	i, t := locate(m.e, e)
+	return m.d[i] + t*(m.d[i+1]-m.d[i])
 }
 
-// Breakpoints returns the table's energies.
-func (m TabulatedDit) Breakpoints() []float64 { return m.E }
+// Breakpoints returns a copy of the table's energies.
+func (m TabulatedDit) Breakpoints() []float64 { return m.Energies() }
 
 // String returns e.g. "TabulatedDit(25 points, -0.5..0.5 eV)".
 func (m TabulatedDit) String() string {
-	if len(m.E) == 0 {
+	if len(m.e) == 0 {
 		return "TabulatedDit(empty)"
 	}
-	return fmt.Sprintf("TabulatedDit(%d points, %g..%g eV)", len(m.E), m.E[0], m.E[len(m.E)-1])
+	return fmt.Sprintf("TabulatedDit(%d points, %g..%g eV)", len(m.e), m.e[0], m.e[len(m.e)-1])
 }
 
 // DitSum is the sum of several interface-state distributions, e.g. a U-shaped continuum and
@@ -292,47 +303,57 @@ func (s ConstantSigma) String() string { return fmt.Sprintf("%g cm^2", float64(s
 // TabulatedSigma is a capture cross section given at energies E (E − Ei, eV, strictly
 // increasing, at least two) with values S (cm^2, finite, > 0). Between nodes it is
 // interpolated linearly in log σ (cross sections span decades); outside the table it keeps
-// the end values. Make one with NewTabulatedSigma; a literal is checked when ExtendedSRH uses
-// it.
+// the end values. Make one with NewTabulatedSigma, which checks and copies the table; it
+// cannot be changed afterwards (Energies, Values and Breakpoints return copies). The zero
+// TabulatedSigma is empty: Validate reports it, and its Sigma is 0.
 type TabulatedSigma struct {
-	E []float64 // energies E − Ei, eV, strictly increasing
-	S []float64 // capture cross sections at E, cm^2
+	e []float64 // energies E − Ei, eV, strictly increasing
+	s []float64 // capture cross sections at E, cm^2
 }
 
 // NewTabulatedSigma returns a TabulatedSigma with copies of e and sigma, or an error naming
 // the first bad entry.
 func NewTabulatedSigma(e, sigma []float64) (TabulatedSigma, error) {
-	m := TabulatedSigma{E: append([]float64(nil), e...), S: append([]float64(nil), sigma...)}
-	return m, m.Validate()
+	m := TabulatedSigma{e: append([]float64(nil), e...), s: append([]float64(nil), sigma...)}
+	if err := m.Validate(); err != nil {
+		return TabulatedSigma{}, err
+	}
+	return m, nil
 }
+
+// Energies returns a copy of the table's energies E − Ei in eV.
+func (m TabulatedSigma) Energies() []float64 { return append([]float64(nil), m.e...) }
+
+// Values returns a copy of the table's cross sections in cm^2.
+func (m TabulatedSigma) Values() []float64 { return append([]float64(nil), m.s...) }
 
 // Validate returns an error unless the table is well formed (see TabulatedSigma).
 func (m TabulatedSigma) Validate() error {
-	return validateTable("TabulatedSigma", "S", "cm^2", m.E, m.S, true)
+	return validateTable("TabulatedSigma", "S", "cm^2", m.e, m.s, true)
 }
 
 // Sigma returns the interpolated cross section in cm^2 at e = E − Ei in eV (0 for a
 // malformed table, which Validate reports; ExtendedSRH calls Validate).
 func (m TabulatedSigma) Sigma(e float64) float64 {
-	n := len(m.E)
-	if n < 2 || n != len(m.S) {
+	n := len(m.e)
+	if n < 2 || n != len(m.s) {
 		return 0
 	}
 	switch {
-	case e <= m.E[0]:
-		return m.S[0]
-	case e >= m.E[n-1]:
-		return m.S[n-1]
+	case e <= m.e[0]:
+		return m.s[0]
+	case e >= m.e[n-1]:
+		return m.s[n-1]
 	}
-	i, t := locate(m.E, e)
-	return m.S[i] * math.Pow(m.S[i+1]/m.S[i], t)
+	i, t := locate(m.e, e)
+	return m.s[i] * math.Pow(m.s[i+1]/m.s[i], t)
 }
 
-// Breakpoints returns the table's energies.
-func (m TabulatedSigma) Breakpoints() []float64 { return m.E }
+// Breakpoints returns a copy of the table's energies.
+func (m TabulatedSigma) Breakpoints() []float64 { return m.Energies() }
 
 // String returns e.g. "TabulatedSigma(5 points)".
-func (m TabulatedSigma) String() string { return fmt.Sprintf("TabulatedSigma(%d points)", len(m.E)) }
+func (m TabulatedSigma) String() string { return fmt.Sprintf("TabulatedSigma(%d points)", len(m.e)) }
 
 // locate returns i and t in [0, 1] with x = e[i] + t (e[i+1] − e[i]), for e[0] <= x <= e[n−1].
 func locate(e []float64, x float64) (int, float64) {

@@ -77,8 +77,18 @@ func TestTabulated(t *testing.T) {
 	v := []float64{1, 1}
 	d2, _ := NewTabulatedDit(e, v)
 	v[0] = 5
-	if d2.D[0] != 1 {
+	if d2.Densities()[0] != 1 {
 		t.Error("NewTabulatedDit does not copy")
+	}
+	// Nor can a caller change the table through what it hands out.
+	d2.Densities()[0], d2.Energies()[1], d2.Breakpoints()[0] = 7, 9, -3
+	if d2.Density(0) != 1 || d2.Breakpoints()[1] != 1 {
+		t.Error("TabulatedDit hands out its internal slices")
+	}
+	s2, _ := NewTabulatedSigma([]float64{0, 1}, []float64{1e-16, 1e-15})
+	s2.Values()[0], s2.Breakpoints()[0] = 1, 5
+	if s2.Sigma(-1) != 1e-16 || s2.Energies()[0] != 0 {
+		t.Error("TabulatedSigma hands out its internal slices")
 	}
 }
 
@@ -140,9 +150,9 @@ func TestDitStrings(t *testing.T) {
 		{ConstantSigma(1e-16), "1e-16 cm^2"},
 		{GaussianDit{Peak: 1e12, E0: 0.25, Width: 0.1}, "GaussianDit(1e+12 cm^-2 eV^-1 at 0.25 eV, width 0.1 eV)"},
 		{UShapedDit{Mid: 1e10, TailC: 1e13, TailV: 1e13}, "UShapedDit(mid 1e+10, tails 1e+13/1e+13 cm^-2 eV^-1)"},
-		{TabulatedDit{E: []float64{-0.5, 0.5}, D: []float64{1, 1}}, "TabulatedDit(2 points, -0.5..0.5 eV)"},
+		{TabulatedDit{e: []float64{-0.5, 0.5}, d: []float64{1, 1}}, "TabulatedDit(2 points, -0.5..0.5 eV)"},
 		{TabulatedDit{}, "TabulatedDit(empty)"},
-		{TabulatedSigma{E: []float64{0, 1}}, "TabulatedSigma(2 points)"},
+		{TabulatedSigma{e: []float64{0, 1}}, "TabulatedSigma(2 points)"},
 		{DitSum{ConstantDit{1}, nil}, "ConstantDit(1 cm^-2 eV^-1) + <nil>"},
 	} {
 		if got := c.s.String(); got != c.want {

@@ -76,7 +76,9 @@ const (
 // polarity; the solver is a bracketed one and returns an error (check.ErrNoConvergence) rather
 // than an inaccurate result. The fields are the user's: no parameters of a particular
 // dielectric are implied by the model's authors. ExtendedSRH is a value and safe for
-// concurrent use (provided its distributions are not mutated meanwhile).
+// concurrent use; the package's distributions are values too (the tabulated ones copy their
+// tables in and out), so no later change by the caller reaches a model already built. A
+// distribution of your own behind a pointer would be shared: prefer values.
 type ExtendedSRH struct {
 	Dit    DitDistribution // interface-state density versus E − Ei, cm^-2 eV^-1
 	SigmaN CrossSection    // electron capture cross section versus E − Ei, cm^2

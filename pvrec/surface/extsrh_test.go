@@ -511,7 +511,7 @@ func TestExtendedSRHErrors(t *testing.T) {
 	mat := defaultMaterial(t)
 	b := mustBulk(t, mat, 0, 1e16, 1e15)
 	good := NewExtendedSRH(ConstantDit{1e11}, ConstantSigma(1e-16), ConstantSigma(1e-16), 0)
-	badTab := TabulatedDit{E: []float64{0, 0.1}, D: []float64{1, -1}}
+	badTab := TabulatedDit{e: []float64{0, 0.1}, d: []float64{1, -1}}
 	for _, c := range []struct {
 		name     string
 		edit     func(*ExtendedSRH, *recomb.State)
@@ -532,7 +532,7 @@ func TestExtendedSRHErrors(t *testing.T) {
 		{"bad sum", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = DitSum{ConstantDit{1}, nil} }, false},
 		{"zero sigma", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaP = ConstantSigma(0) }, false},
 		{"zero Gaussian width", func(m *ExtendedSRH, _ *recomb.State) { m.Dit = GaussianDit{Peak: 1} }, false},
-		{"bad sigma table", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaN = TabulatedSigma{E: []float64{0}, S: []float64{1e-16}} }, false},
+		{"bad sigma table", func(m *ExtendedSRH, _ *recomb.State) { m.SigmaN = TabulatedSigma{e: []float64{0}, s: []float64{1e-16}} }, false},
 		{"Bulk NaN Dn", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = math.NaN() }, false},
 		{"Bulk zero Dn", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = 0 }, false},
 		{"Bulk Dn too large", func(_ *ExtendedSRH, b *recomb.State) { b.Dn = 2e18 }, true},
