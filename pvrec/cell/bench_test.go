@@ -56,3 +56,30 @@ func BenchmarkVoc(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkCurveAt is a 200-point J–V curve at caller-chosen terminal voltages, each point a
+// bracketed root in ln Δn (warm-started from the previous point), with Rs.
+func BenchmarkCurveAt(b *testing.B) {
+	d := benchDevice(b)
+	v := make([]float64, 200)
+	for i := range v {
+		v[i] = 0.7 * float64(i) / float64(len(v)-1)
+	}
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := d.CurveAt(v); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkSolve is a full Result (Voc, Jsc, MPP, pseudo FF, budgets at Voc and MPP).
+func BenchmarkSolve(b *testing.B) {
+	d := benchDevice(b)
+	b.ReportAllocs()
+	for b.Loop() {
+		if _, err := d.Solve(); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

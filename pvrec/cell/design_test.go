@@ -223,3 +223,40 @@ func TestRegionParts(t *testing.T) {
 		}
 	}
 }
+
+// TestStrings checks that the printed tables carry their units, every term and the material's
+// model set (provenance), and that Metallised sums the contacted fractions.
+func TestStrings(t *testing.T) {
+	dev := mustDevice(t, fullDesign(t))
+	front, rear := dev.Metallised()
+	if front != 0.04 || rear != 0.03 {
+		t.Errorf("metallised fractions %g, %g, want 0.04, 0.03", front, rear)
+	}
+	l, err := dev.Losses()
+	if err != nil {
+		t.Fatal(err)
+	}
+	tc, err := dev.TemperatureCoefficients(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	model := dev.Material().String()
+	for name, s := range map[string]string{"Result": l.Cell.String(), "Losses": l.String()} {
+		for _, w := range []string{model, "mV", "fA/cm²", "%", "front: emitter", "rear: dielectric", "base: SRH", "second diode J02", "shunt Rsh"} {
+			if !strings.Contains(s, w) {
+				t.Errorf("%s.String() lacks %q:\n%s", name, w, s)
+			}
+		}
+	}
+	if s := l.String(); !strings.Contains(s, "series Rs") || !strings.Contains(s, "ΔVoc (mV)") {
+		t.Errorf("Losses.String() lacks the Rs row or the ΔVoc column:\n%s", s)
+	}
+	if s := tc.String(); !strings.Contains(s, "mV/K") || !strings.Contains(s, "note: ") {
+		t.Errorf("TempCoefficients.String():\n%s", s)
+	}
+	for k, want := range map[Kind]string{KindRegion: "region", KindSurface: "surface", KindBulk: "bulk", KindSecondDiode: "second diode", KindShunt: "shunt", KindSeries: "series resistance", 0: "Kind(0)"} {
+		if k.String() != want {
+			t.Errorf("Kind(%d).String() = %q, want %q", k, k, want)
+		}
+	}
+}

@@ -242,3 +242,24 @@ func ExampleIdealDiodeFF() {
 	// Output:
 	// FF = 84.66 %
 }
+
+// J–V points of the invented design at chosen terminal voltages: each point is a bracketed
+// root that meets the voltage with the series resistance included.
+func ExampleDevice_CurveAt() {
+	dev, err := cell.New(demoDesign())
+	if err != nil {
+		log.Fatal(err)
+	}
+	c, err := dev.CurveAt([]float64{0, 0.55, 0.60, 0.65})
+	if err != nil {
+		log.Fatal(err)
+	}
+	for k := range c.V {
+		fmt.Printf("V = %.2f V  J = %6.3f mA/cm²  internal %.1f mV\n", c.V[k], 1e3*c.J[k], 1e3*c.Vi[k])
+	}
+	// Output:
+	// V = 0.00 V  J = 40.000 mA/cm²  internal 20.0 mV
+	// V = 0.55 V  J = 39.649 mA/cm²  internal 569.8 mV
+	// V = 0.60 V  J = 37.633 mA/cm²  internal 618.8 mV
+	// V = 0.65 V  J = 26.588 mA/cm²  internal 663.3 mV
+}
