@@ -28,11 +28,11 @@ const FractionTol = 1e-9
 // diode, the lumped series and shunt resistances, the photogenerated current and the incident
 // power. New checks it and prepares it for evaluation (a Device).
 //
-// The cell is described in the usual one-dimensional J0-budget picture (common practice, e.g.
-// the lumped "J0 budget" of cell design studies): the base is quasi-neutral with a uniform
-// excess carrier density Δn (its diffusion length much longer than its thickness), the
-// quasi-Fermi level separation qV in the base is the internal voltage, and every part
-// recombines in proportion to its area fraction at that Δn and V:
+// The cell is described in the usual lumped, one-dimensional J0-budget picture (common
+// practice, no source): the base is quasi-neutral with a uniform excess carrier density Δn
+// (its diffusion length much longer than its thickness), the quasi-Fermi level separation qV
+// in the base is the internal voltage, and every part recombines in proportion to its area
+// fraction at that Δn and V:
 //
 //	J_rec(V) = Σ_parts f_i J_i(Δn) + q W_b R_bulk(Δn) + J02 (exp(qV/2kT) − 1) + V/Rsh,
 //	n p = ni,eff² exp(qV/kT) in the base (its band-gap narrowing and degeneracy included),

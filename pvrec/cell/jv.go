@@ -194,7 +194,7 @@ func (d *Device) ShortCircuit() (Point, error) {
 }
 
 // MaxPower returns the maximum-power point: the root of dP/dx, x = ln Δn, with P = V J the
-// delivered power density, by Brent's method on a bracket searched downward from one unit of
+// delivered power density, by Brent's method on a bracket searched outward from one unit of
 // x below the open circuit; dP/dx is a central difference with a step of 1e-5 in x. Vmp and
 // Jmp are accurate to about 1e-9 relative, Pmp to rounding (P is stationary there). It
 // returns an error for the zero Device, an error of a model, or one matching
