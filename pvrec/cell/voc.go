@@ -73,11 +73,8 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 		}
 		return v - voc, nil
 	}
-	vt := b.Material().Vt()
-	bb := eq.N0 + eq.P0
-	c := eq.N0 * eq.P0 * math.Expm1(voc/vt)
-	dn0 := 2 * c / (bb + math.Sqrt(bb*bb+4*c))
-	if math.IsInf(c, 0) || dn0 > recomb.MaxExcess {
+	dn0 := nominalExcess(eq, b.Material().Vt(), voc)
+	if dn0 > recomb.MaxExcess {
 		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V needs Δn above recomb.MaxExcess = %g cm^-3", voc, recomb.MaxExcess)
 	}
 	if !(dn0 > 0) {
@@ -114,6 +111,24 @@ func ExcessFromImpliedVoc(b *recomb.Bulk, voc float64) (float64, error) {
 		return 0, fmt.Errorf("cell: ExcessFromImpliedVoc: voc = %g V: %w", voc, err)
 	}
 	return math.Exp(x), nil
+}
+
+// nominalExcess returns the excess carrier density in cm^-3 at which a bulk with equilibrium
+// densities eq.N0, eq.P0 would have implied voltage v in V (>= 0) if ni,eff did not depend on
+// injection: the stable root Δn = 2c/(b + sqrt(b² + 4c)) of Δn² + bΔn − c = 0, b = n0 + p0,
+// c = n0 p0 expm1(v/vt). It returns +Inf when c overflows.
+func nominalExcess(eq silicon.Equilibrium, vt, v float64) float64 {
+	bb := eq.N0 + eq.P0
+	c := eq.N0 * eq.P0 * math.Expm1(v/vt)
+	if math.IsInf(c, 1) {
+		return math.Inf(1)
+	}
+	return 2 * c / (bb + math.Sqrt(bb*bb+4*c))
+}
+
+// nominalVoltage is the inverse of nominalExcess: vt ln(1 + Δn (n0 + p0 + Δn)/(n0 p0)) in V.
+func nominalVoltage(eq silicon.Equilibrium, vt, dn float64) float64 {
+	return vt * math.Log1p(dn*(eq.N0+eq.P0+dn)/(eq.N0*eq.P0))
 }
 
 // IdealDiodeVoc returns the open-circuit voltage in V of an ideal diode with saturation
@@ -180,4 +195,37 @@ func J0FromVoc(voc, jsc, ideality float64, m *silicon.Material) (float64, error)
 		return 0, fmt.Errorf("cell: J0FromVoc: J0 underflows for voc = %g V, ideality %g at T = %g K", voc, ideality, m.T())
 	}
 	return j0, nil
+}
+
+// IdealDiodeFF returns the fill factor (dimensionless) of an ideal diode without series or
+// shunt resistance, J = Jsc − J0 (exp(qV/(n_id kT)) − 1), with open-circuit voltage voc in V
+// (finite, 0 < voc < m.Eg()) and ideality factor ideality (finite, > 0) in material m, at m's
+// temperature. With v = V/(n_id kT/q), the maximum-power voltage solves
+//
+//	(1 + v_mp) exp(v_mp) = exp(v_oc)   (v_mp = W(e^(v_oc+1)) − 1, W the Lambert function),
+//
+// and FF = v_mp (1 − expm1(v_mp)/expm1(v_oc))/v_oc (the exact single-diode fill factor, e.g.
+// M. A. Green, Solar Cells: Operating Principles, Technology and System Applications,
+// Prentice-Hall 1982). v_mp is found by Brent's method on v + ln(1 + v) = v_oc in (0, v_oc), to
+// rounding. It returns an error for a nil m or invalid arguments.
+func IdealDiodeFF(voc, ideality float64, m *silicon.Material) (float64, error) {
+	if m == nil {
+		return 0, fmt.Errorf("cell: IdealDiodeFF: material m is nil")
+	}
+	if err := check.Positive("cell: IdealDiodeFF", "open-circuit voltage voc", voc, "V"); err != nil {
+		return 0, err
+	}
+	if !(voc < m.Eg()) {
+		return 0, fmt.Errorf("cell: IdealDiodeFF: open-circuit voltage voc = %g V must be below the band gap %.4g eV", voc, m.Eg())
+	}
+	if err := check.Positive("cell: IdealDiodeFF", "ideality factor", ideality, ""); err != nil {
+		return 0, err
+	}
+	u := voc / (ideality * m.Vt())
+	f := func(v float64) (float64, error) { return v + math.Log1p(v) - u, nil }
+	vm, err := roots.Brent(f, 0, u, -u, math.Log1p(u), 0, maxBrentI)
+	if err != nil {
+		return 0, check.NoConvergence("cell: IdealDiodeFF: voc = %g V: %v", voc, err)
+	}
+	return vm * (1 - math.Expm1(vm)/math.Expm1(u)) / u, nil
 }

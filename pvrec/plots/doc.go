@@ -1,11 +1,12 @@
 // Package plots builds pvrec's figures on gonum.org/v1/plot with one house style: line plots
-// of curves versus doping, injection or depth, with optional logarithmic axes, and export to
-// SVG, PDF or PNG.
+// of curves versus doping, injection or depth, with optional logarithmic axes (Lines),
+// horizontal bar charts of named parts such as a J0 budget (Bars), and export to SVG, PDF or
+// PNG.
 //
 // The package holds no physics: callers compute curves with the pvrec packages and pass them
-// here as Series. Every builder validates its input and returns an error (never panics), for
-// example for a non-positive value on a logarithmic axis, which gonum/plot would otherwise
-// reject with a panic.
+// here as Series (or Bar values). Every builder validates its input and returns an error
+// (never panics), for example for a non-positive value on a logarithmic axis, which
+// gonum/plot would otherwise reject with a panic.
 //
 // Write units in labels as "cm^-3": the Liberation fonts that gonum/plot uses lack the
 // superscript minus sign. SVG embeds the fonts for files that travel; SVGInline is the light form

@@ -18,3 +18,18 @@ func ExampleLines() {
 	fmt.Println(err == nil && len(svg) > 0)
 	// Output: true
 }
+
+// A J0 budget as a horizontal bar chart, largest part first (invented values).
+func ExampleBars() {
+	p, err := plots.Bars(plots.Axes{Title: "J0 budget at Voc", XLabel: "J0 (fA/cm^2)"},
+		plots.Bar{Label: "front: emitter", Value: 34},
+		plots.Bar{Label: "rear: contacts", Value: 10},
+		plots.Bar{Label: "base", Value: 4})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	svg, err := plots.SVGInline(p)
+	fmt.Println(err == nil && len(svg) > 0)
+	// Output: true
+}

@@ -112,3 +112,55 @@ func TestLegendPositions(t *testing.T) {
 		t.Errorf("unknown legend position accepted")
 	}
 }
+
+// TestBars checks the structure of a bar chart: one horizontal bar per entry, the first at the
+// top (largest category position), labels on the category axis in that order, values kept,
+// the labels in the rendered SVG; and the errors for bad input.
+func TestBars(t *testing.T) {
+	bars := []Bar{{"front: emitter", 34}, {"rear: contacts", 10.5}, {"base", 4.1}, {"ΔFF", -0.2}}
+	p, chart, err := barChart(Axes{Title: "J0 budget", XLabel: "J0 (fA/cm^2)"}, bars)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !chart.Horizontal || chart.Len() != len(bars) {
+		t.Fatalf("want one horizontal bar chart of %d bars, got %+v", len(bars), chart)
+	}
+	ticks := p.Y.Tick.Marker.Ticks(p.Y.Min, p.Y.Max)
+	if len(ticks) != len(bars) {
+		t.Fatalf("%d category ticks, want %d", len(ticks), len(bars))
+	}
+	for i, b := range bars {
+		pos := len(bars) - 1 - i
+		if ticks[pos].Label != b.Label || ticks[pos].Value != float64(pos) || chart.Value(pos) != b.Value {
+			t.Errorf("bar %d: tick %+v, value %g; want %q at %d with %g", i, ticks[pos], chart.Value(pos), b.Label, pos, b.Value)
+		}
+	}
+	if p.X.Min > -0.2 || p.X.Max < 34 {
+		t.Errorf("value axis [%g, %g] does not hold the bars", p.X.Min, p.X.Max)
+	}
+	svg, err := SVGInline(p)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range []string{"J0 budget", "J0 (fA/cm^2)", "front: emitter", "rear: contacts"} {
+		if !strings.Contains(string(svg), w) {
+			t.Errorf("SVG lacks %q", w)
+		}
+	}
+	for _, tc := range []struct {
+		name string
+		ax   Axes
+		bars []Bar
+		want string
+	}{
+		{"no bars", Axes{}, nil, "no bars"},
+		{"NaN", Axes{}, []Bar{{"a", 1}, {"b", math.NaN()}}, `bar 1 ("b") has a non-finite value`},
+		{"no label", Axes{}, []Bar{{"", 1}}, "bar 0 has no label"},
+		{"log axis", Axes{LogX: true}, []Bar{{"a", 1}}, "linear value axis"},
+		{"y label", Axes{YLabel: "parts"}, []Bar{{"a", 1}}, `YLabel "parts"`},
+	} {
+		if _, err := Bars(tc.ax, tc.bars...); err == nil || !strings.Contains(err.Error(), tc.want) {
+			t.Errorf("%s: error %v, want %q", tc.name, err, tc.want)
+		}
+	}
+}
