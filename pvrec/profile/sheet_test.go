@@ -6,8 +6,10 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
+
+	"github.com/pvrec/pvrec/pvrec"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 const q = silicon.ElementaryCharge
@@ -203,8 +205,8 @@ func TestSheetBadInput(t *testing.T) {
 		}
 	}
 	_, err := SheetResistanceFunc(silicon.NewMasetti1983(), 350, silicon.Donor, good, 1e-4, 0)
-	if !errors.Is(err, silicon.ErrOutOfRange) {
-		t.Errorf("Masetti at 350 K: %v does not wrap silicon.ErrOutOfRange", err)
+	if !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("Masetti at 350 K: %v does not wrap pvrec.ErrOutOfRange", err)
 	}
 }
 

@@ -3,6 +3,8 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Passler2002 is the dispersion-related ("Δ") model of the temperature dependence of the
@@ -42,7 +44,10 @@ func (Passler2002) String() string { return "Pässler2002" }
 // Eg returns the band gap in eV at temperature t in K. It returns an error for t <= 0, NaN,
 // infinite, or above TMax.
 func (m Passler2002) Eg(t float64) (float64, error) {
-	if err := checkTRange(m.String(), t, 0, m.TMax); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, err
+	}
+	if err := check.Window("silicon", m.String(), t, 0, m.TMax); err != nil {
 		return 0, err
 	}
 	d2 := m.Delta * m.Delta
@@ -75,7 +80,7 @@ func (m FixedGap) String() string { return fmt.Sprintf("FixedGap(%g eV)", m.Valu
 
 // Eg returns m.Value in eV for any finite t > 0 K, and an error for invalid t.
 func (m FixedGap) Eg(t float64) (float64, error) {
-	if err := checkTemperature(t); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
 		return 0, err
 	}
 	return m.Value, nil

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // bgnAllModels returns every BGN model of the package with its published parameters.
@@ -88,8 +90,8 @@ func TestBGNAboveAtomDensity(t *testing.T) {
 			{T: 300, Nd: 3e22, Na: 3e22, N: 1e20},
 		} {
 			d, err := m.DeltaEg(pt)
-			if !errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") {
-				t.Errorf("%v.DeltaEg(%+v) = %g, %v; want an ErrOutOfRange error", m, pt, d, err)
+			if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") {
+				t.Errorf("%v.DeltaEg(%+v) = %g, %v; want an pvrec.ErrOutOfRange error", m, pt, d, err)
 			}
 		}
 	}
@@ -199,8 +201,8 @@ func TestSlotboomLimits(t *testing.T) {
 func TestDelAlamoPTypeRefused(t *testing.T) {
 	for _, pt := range []Point{bgnPType(1e19), {T: 300, Nd: 1e18, Na: 2e18, P: 1e18}} {
 		d, err := NewDelAlamoSwanson1987().DeltaEg(pt)
-		if !errors.Is(err, ErrOutOfRange) || !strings.Contains(err.Error(), "Na") {
-			t.Errorf("DelAlamoSwanson1987.DeltaEg(%+v) = %g, %v; want ErrOutOfRange naming Na", pt, d, err)
+		if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.Contains(err.Error(), "Na") {
+			t.Errorf("DelAlamoSwanson1987.DeltaEg(%+v) = %g, %v; want pvrec.ErrOutOfRange naming Na", pt, d, err)
 		}
 	}
 }

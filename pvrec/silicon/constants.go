@@ -2,6 +2,8 @@ package silicon
 
 import (
 	"gonum.org/v1/gonum/unit/constant"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Physical constants used by the package, from the exact SI values (CODATA 2018) in
@@ -27,7 +29,7 @@ const (
 // ThermalVoltage returns the thermal voltage kT/q in V at temperature t in K
 // (25.852 mV at 300 K). It returns an error, naming t, if t is NaN, infinite or <= 0.
 func ThermalVoltage(t float64) (float64, error) {
-	if err := checkTemperature(t); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
 		return 0, err
 	}
 	return BoltzmannEV * t, nil

@@ -18,7 +18,8 @@
 //
 // Units are cm^-3, K, eV and V. Bad input (NaN, ±Inf, negative densities, T <= 0) returns an
 // error naming the argument; a temperature or density outside a model's validity range returns
-// an error for which errors.Is(err, ErrOutOfRange) holds (a *RangeError).
+// an error for which errors.Is(err, pvrec.ErrOutOfRange) holds (a *pvrec.RangeError, from
+// github.com/pvrec/pvrec/pvrec).
 //
 // # How the models combine
 //

@@ -7,6 +7,8 @@ import (
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
 	"github.com/pvrec/pvrec/pvrec/internal/roots"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Equilibrium is the thermal-equilibrium state of doped silicon returned by
@@ -64,10 +66,10 @@ type carriers struct {
 // It returns an error for invalid nd or na, an error from a model, or densities that are not
 // representable (for instance a minority density below 1e-308 cm^-3).
 func (m *Material) Equilibrium(nd, na float64) (Equilibrium, error) {
-	if err := checkDensity("nd", nd); err != nil {
+	if err := check.Density("silicon", "density nd", nd); err != nil {
 		return Equilibrium{}, err
 	}
-	if err := checkDensity("na", na); err != nil {
+	if err := check.Density("silicon", "density na", na); err != nil {
 		return Equilibrium{}, err
 	}
 	// Starting point: Boltzmann, complete ionisation, no narrowing.

@@ -85,13 +85,8 @@ func (m *Material) DeltaEg(n, p, nd, na float64) (float64, error) {
 // temperature-dependent quantity; it costs one BGN evaluation and, under Fermi–Dirac statistics,
 // up to two inversions of F_{1/2}.
 func (m *Material) NiEff(n, p, nd, na float64) (float64, error) {
-	for _, a := range [...]struct {
-		name string
-		v    float64
-	}{{"n", n}, {"p", p}, {"nd", nd}, {"na", na}} {
-		if err := checkDensity(a.name, a.v); err != nil {
-			return 0, err
-		}
+	if err := checkDensities(n, p, nd, na); err != nil {
+		return 0, err
 	}
 	d, err := m.DeltaEg(n, p, nd, na)
 	if err != nil {

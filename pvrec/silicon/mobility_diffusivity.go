@@ -5,6 +5,8 @@ import (
 	"math"
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Diffusivity returns the diffusivity D = μ kT/q in cm²/s of non-degenerate carriers with
@@ -16,7 +18,7 @@ func Diffusivity(mu, t float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	if err := checkMobilityValue("mu", mu); err != nil {
+	if err := check.NonNegative("silicon", "mobility mu", mu, "cm²/(V·s)"); err != nil {
 		return 0, err
 	}
 	return mu * vt, nil
@@ -37,11 +39,11 @@ func DiffusivityFD(mu, t, n, nEff float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	if err := checkDensity("n", n); err != nil {
+	if err := check.Density("silicon", "density n", n); err != nil {
 		return 0, err
 	}
-	if !(nEff > 0) || math.IsInf(nEff, 0) {
-		return 0, fmt.Errorf("silicon: effective density of states nEff must be finite and > 0 cm^-3, got %g", nEff)
+	if err := check.Positive("silicon", "effective density of states nEff", nEff, "cm^-3"); err != nil {
+		return 0, err
 	}
 	return d * degeneracyFactor(n/nEff), nil
 }
@@ -94,18 +96,16 @@ func Diffusivities(mat *Material, mob Mobility, n, p, nd, na float64) (dn, dp fl
 // in low injection and to 2 Dn Dp/(Dn + Dp) in high injection. It returns an error for
 // diffusivities not finite and > 0, for invalid densities, or for n = p = 0.
 func AmbipolarDiffusivity(dn, dp, n, p float64) (float64, error) {
-	for _, a := range [...]struct {
-		name string
-		v    float64
-	}{{"Dn", dn}, {"Dp", dp}} {
-		if !(a.v > 0) || math.IsInf(a.v, 0) {
-			return 0, fmt.Errorf("silicon: diffusivity %s must be finite and > 0 cm²/s, got %g", a.name, a.v)
-		}
-	}
-	if err := checkDensity("n", n); err != nil {
+	if err := check.Positive("silicon", "diffusivity Dn", dn, "cm²/s"); err != nil {
 		return 0, err
 	}
-	if err := checkDensity("p", p); err != nil {
+	if err := check.Positive("silicon", "diffusivity Dp", dp, "cm²/s"); err != nil {
+		return 0, err
+	}
+	if err := check.Density("silicon", "density n", n); err != nil {
+		return 0, err
+	}
+	if err := check.Density("silicon", "density p", p); err != nil {
 		return 0, err
 	}
 	if n == 0 && p == 0 {
@@ -113,12 +113,4 @@ func AmbipolarDiffusivity(dn, dp, n, p float64) (float64, error) {
 	}
 	// (n + p) Dn Dp / (n Dn + p Dp), written so that n or p = 0 gives Dp or Dn exactly.
 	return (n + p) * dn * dp / (n*dn + p*dp), nil
-}
-
-// checkMobilityValue returns an error unless mu is a finite mobility >= 0 in cm²/(V·s).
-func checkMobilityValue(name string, mu float64) error {
-	if math.IsNaN(mu) || math.IsInf(mu, 0) || mu < 0 {
-		return fmt.Errorf("silicon: mobility %s must be finite and >= 0 cm²/(V·s), got %g", name, mu)
-	}
-	return nil
 }

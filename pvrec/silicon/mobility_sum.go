@@ -5,6 +5,8 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/interp"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // SumMobility returns μn + μp in cm²/(V·s) of a wafer in equilibrium state eq (temperature,
@@ -16,7 +18,7 @@ func SumMobility(mob Mobility, eq Point, dn float64) (float64, error) {
 	if mob == nil {
 		return 0, fmt.Errorf("silicon: SumMobility needs a non-nil Mobility")
 	}
-	if err := checkDensity("excess carrier density dn", dn); err != nil {
+	if err := check.Density("silicon: SumMobility", "excess carrier density dn", dn); err != nil {
 		return 0, err
 	}
 	pt := eq
@@ -153,11 +155,10 @@ func (t *SumMobilityTable) Range() (dnMin, dnMax float64) { return t.dnMin, t.dn
 func (t *SumMobilityTable) RelErr() float64 { return t.relErr }
 
 // At returns μn + μp in cm²/(V·s) at excess carrier density dn in cm^-3. It returns an error
-// (errors.Is(err, ErrOutOfRange)) for dn outside the table's Range, or NaN.
+// (errors.Is(err, pvrec.ErrOutOfRange)) for dn outside the table's Range, or NaN.
 func (t *SumMobilityTable) At(dn float64) (float64, error) {
 	if !(dn >= t.dnMin && dn <= t.dnMax) {
-		return 0, &RangeError{Model: "SumMobilityTable", Arg: "excess carrier density dn", Unit: "cm^-3",
-			Value: dn, Min: t.dnMin, Max: t.dnMax}
+		return 0, check.Range("silicon", "SumMobilityTable", "excess carrier density dn", "cm^-3", dn, t.dnMin, t.dnMax)
 	}
 	x := math.Log(dn)
 	// Rounding of the logarithm must not step outside the spline's knots.

@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
@@ -202,7 +204,7 @@ func TestModelErrors(t *testing.T) {
 		name  string
 		f     call
 		inRng []float64 // valid temperatures
-		out   []float64 // temperatures outside the validity range (ErrOutOfRange)
+		out   []float64 // temperatures outside the validity range (pvrec.ErrOutOfRange)
 	}{
 		{"Pässler2002", gap(NewPassler2002()), []float64{1e-3, 300, 500}, []float64{500.1}},
 		{"FixedGap", gap(NewFixedGap()), []float64{1e-3, 1e4}, nil},
@@ -223,13 +225,13 @@ func TestModelErrors(t *testing.T) {
 		}
 		for _, x := range tc.out {
 			err := tc.f(x)
-			if !errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: "+tc.name+": temperature T") {
-				t.Errorf("%s(%g): err = %v, want ErrOutOfRange naming the model and T", tc.name, x, err)
+			if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: "+tc.name+": temperature T") {
+				t.Errorf("%s(%g): err = %v, want pvrec.ErrOutOfRange naming the model and T", tc.name, x, err)
 			}
 		}
 		for _, x := range []float64{0, -300, math.NaN(), math.Inf(1), math.Inf(-1)} {
 			err := tc.f(x)
-			if err == nil || errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: temperature T") {
+			if err == nil || errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: temperature T") {
 				t.Errorf("%s(%g): err = %v, want an invalid-T error", tc.name, x, err)
 			}
 		}

@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strings"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // ModelSet is the user-editable choice of material models: a plain value that can be copied
@@ -85,12 +87,12 @@ func (ms ModelSet) validate() error {
 // At evaluates the temperature-dependent models at temperature t in K and returns the
 // immutable Material that caches them. It returns an error if a field of ms is unset, if t is
 // NaN, infinite or <= 0, if t is outside a model's validity range (errors.Is(err,
-// ErrOutOfRange)), or if a model returns a non-finite or non-positive value.
+// pvrec.ErrOutOfRange)), or if a model returns a non-finite or non-positive value.
 func (ms ModelSet) At(t float64) (*Material, error) {
 	if err := ms.validate(); err != nil {
 		return nil, err
 	}
-	if err := checkTemperature(t); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
 		return nil, err
 	}
 	eg, err := ms.Gap.Eg(t)

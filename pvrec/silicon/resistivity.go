@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Dopant selects a type of dopant: Donor (n-type) or Acceptor (p-type). The zero value is
@@ -108,13 +110,13 @@ func DopingFromResistivity(mat *Material, mob Mobility, rho float64, dop Dopant,
 	if mat == nil || mob == nil {
 		return 0, fmt.Errorf("silicon: DopingFromResistivity needs a non-nil Material and Mobility")
 	}
-	if !(rho > 0) || math.IsInf(rho, 0) {
-		return 0, fmt.Errorf("silicon: DopingFromResistivity: resistivity rho must be finite and > 0 Ω·cm, got %g", rho)
+	if err := check.Positive("silicon: DopingFromResistivity", "resistivity rho", rho, "Ω·cm"); err != nil {
+		return 0, err
 	}
 	if dop != Donor && dop != Acceptor {
 		return 0, fmt.Errorf("silicon: DopingFromResistivity: dopant type dop = %v is not Donor or Acceptor", dop)
 	}
-	if err := checkDensity("compensating density comp", comp); err != nil {
+	if err := check.Density("silicon: DopingFromResistivity", "compensating density comp", comp); err != nil {
 		return 0, err
 	}
 	netHi := ResistivityNMax - 2*comp

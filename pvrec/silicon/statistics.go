@@ -1,6 +1,10 @@
 package silicon
 
-import "fmt"
+import (
+	"fmt"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
+)
 
 // Statistics selects the carrier statistics: Boltzmann or Fermi–Dirac. The zero value is
 // invalid, so that a ModelSet must choose one explicitly.
@@ -41,10 +45,10 @@ func (CompleteIonization) String() string { return "complete ionisation" }
 
 // Ionized returns nd and na unchanged (after checking that they are valid densities).
 func (CompleteIonization) Ionized(t, nd, na, etaN, etaP float64) (ndIon, naIon float64, err error) {
-	if err := checkDensity("nd", nd); err != nil {
+	if err := check.Density("silicon", "density nd", nd); err != nil {
 		return 0, 0, err
 	}
-	if err := checkDensity("na", na); err != nil {
+	if err := check.Density("silicon", "density na", na); err != nil {
 		return 0, 0, err
 	}
 	return nd, na, nil
