@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
@@ -122,7 +123,7 @@ func Dose(p Profile, d silicon.Dopant, x0, x1 float64) (float64, error) {
 	if d != silicon.Donor && d != silicon.Acceptor {
 		return 0, fmt.Errorf("profile: Dose: dopant d must be silicon.Donor or silicon.Acceptor, got %d", d)
 	}
-	return integrate(p, "Dose", x0, x1, func(nd, na float64) float64 {
+	return integrate(p, "profile: Dose", x0, x1, func(nd, na float64) float64 {
 		if d == silicon.Donor {
 			return nd
 		}
@@ -138,19 +139,20 @@ func NetDose(p Profile) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return integrate(p, "NetDose", 0, xj, func(nd, na float64) float64 { return math.Abs(nd - na) })
+	return integrate(p, "profile: NetDose", 0, xj, func(nd, na float64) float64 { return math.Abs(nd - na) })
 }
 
-// integrate returns ∫_x0^x1 f(nd(x), na(x)) dx (see Dose for the method).
-func integrate(p Profile, fn string, x0, x1 float64, f func(nd, na float64) float64) (float64, error) {
+// integrate returns ∫_x0^x1 f(nd(x), na(x)) dx (see Dose for the method); ctx names the
+// caller in errors ("profile: Dose").
+func integrate(p Profile, ctx string, x0, x1 float64, f func(nd, na float64) float64) (float64, error) {
 	if p == nil {
-		return 0, fmt.Errorf("profile: %s: profile p is nil", fn)
+		return 0, fmt.Errorf("%s: profile p is nil", ctx)
 	}
-	if math.IsNaN(x0) || math.IsInf(x0, 0) || x0 < 0 {
-		return 0, fmt.Errorf("profile: %s: depth x0 must be finite and >= 0 cm, got %g", fn, x0)
+	if err := check.NonNegative(ctx, "depth x0", x0, "cm"); err != nil {
+		return 0, err
 	}
 	if math.IsNaN(x1) || math.IsInf(x1, 0) || x1 < x0 {
-		return 0, fmt.Errorf("profile: %s: depth x1 must be finite and >= x0 = %g cm, got %g", fn, x0, x1)
+		return 0, fmt.Errorf("%s: depth x1 must be finite and >= x0 = %g cm, got %g", ctx, x0, x1)
 	}
 	if x1 == x0 {
 		return 0, nil

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -45,26 +46,6 @@ func split(model string, d silicon.Dopant, n float64) (nd, na float64, err error
 	return 0, 0, fmt.Errorf("profile: %s: Dopant must be silicon.Donor or silicon.Acceptor, got %d", model, d)
 }
 
-// checkDepth returns an error unless x is a finite depth >= 0 cm.
-func checkDepth(model string, x float64) error {
-	if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
-		return fmt.Errorf("profile: %s: depth x must be finite and >= 0 cm, got %g", model, x)
-	}
-	return nil
-}
-
-// checkParam returns an error unless v is finite and >= 0 (pos: > 0).
-func checkParam(model, name string, v float64, unit string, pos bool) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 || (pos && v == 0) {
-		cmp := ">= 0"
-		if pos {
-			cmp = "> 0"
-		}
-		return fmt.Errorf("profile: %s: %s must be finite and %s %s, got %g", model, name, cmp, unit, v)
-	}
-	return nil
-}
-
 // Uniform is a constant dopant density N of one type at every depth: a wafer's background
 // doping, or a uniformly doped region for hand calculations.
 type Uniform struct {
@@ -74,10 +55,10 @@ type Uniform struct {
 
 // Dopants returns N as donor or acceptor density in cm^-3 at any valid depth x in cm.
 func (u Uniform) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Uniform", x); err != nil {
+	if err := check.NonNegative("profile: Uniform", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
-	if err := checkParam("Uniform", "density N", u.N, "cm^-3", false); err != nil {
+	if err := check.Density("profile: Uniform", "density N", u.N); err != nil {
 		return 0, 0, err
 	}
 	return split("Uniform", u.Dopant, u.N)
@@ -105,16 +86,16 @@ type Erfc struct {
 }
 
 func (e Erfc) validate() error {
-	if err := checkParam("Erfc", "surface density Surface", e.Surface, "cm^-3", false); err != nil {
+	if err := check.Density("profile: Erfc", "surface density Surface", e.Surface); err != nil {
 		return err
 	}
-	return checkParam("Erfc", "characteristic length Length", e.Length, "cm", true)
+	return check.Positive("profile: Erfc", "characteristic length Length", e.Length, "cm")
 }
 
 // Dopants returns the density of the profile in cm^-3 at depth x in cm, as donor or acceptor
 // density, or an error for invalid x or parameters.
 func (e Erfc) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Erfc", x); err != nil {
+	if err := check.NonNegative("profile: Erfc", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	if err := e.validate(); err != nil {
@@ -161,19 +142,19 @@ type Gaussian struct {
 }
 
 func (g Gaussian) validate() error {
-	if err := checkParam("Gaussian", "peak density Peak", g.Peak, "cm^-3", false); err != nil {
+	if err := check.Density("profile: Gaussian", "peak density Peak", g.Peak); err != nil {
 		return err
 	}
-	if math.IsNaN(g.Center) || math.IsInf(g.Center, 0) {
-		return fmt.Errorf("profile: Gaussian: peak depth Center must be finite, got %g cm", g.Center)
+	if err := check.Finite("profile: Gaussian", "peak depth Center", g.Center, "cm"); err != nil {
+		return err
 	}
-	return checkParam("Gaussian", "characteristic length Length", g.Length, "cm", true)
+	return check.Positive("profile: Gaussian", "characteristic length Length", g.Length, "cm")
 }
 
 // Dopants returns the density of the profile in cm^-3 at depth x in cm, as donor or acceptor
 // density, or an error for invalid x or parameters.
 func (g Gaussian) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Gaussian", x); err != nil {
+	if err := check.NonNegative("profile: Gaussian", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	if err := g.validate(); err != nil {
@@ -213,7 +194,7 @@ type Sum []Profile
 // Dopants returns the summed donor and acceptor densities in cm^-3 at depth x in cm, or the
 // first error of a term.
 func (s Sum) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Sum", x); err != nil {
+	if err := check.NonNegative("profile: Sum", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	for i, p := range s {

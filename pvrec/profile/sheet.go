@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
 )
@@ -152,8 +153,8 @@ func SheetResistanceFunc(mob silicon.Mobility, t float64, dop silicon.Dopant, de
 	if density == nil {
 		return Sheet{}, fmt.Errorf("profile: SheetResistanceFunc needs a non-nil density function")
 	}
-	if !(depthCm > 0) || math.IsInf(depthCm, 0) {
-		return Sheet{}, fmt.Errorf("profile: depth depthCm must be finite and > 0 cm, got %g", depthCm)
+	if err := check.Positive("profile: SheetResistanceFunc", "depth depthCm", depthCm, "cm"); err != nil {
+		return Sheet{}, err
 	}
 	var ferr error
 	dens := func(x float64) float64 {
@@ -252,11 +253,11 @@ func newIntegrand(mob silicon.Mobility, t float64, dop silicon.Dopant, backgroun
 	if dop != silicon.Donor && dop != silicon.Acceptor {
 		return nil, fmt.Errorf("profile: dopant type dop = %v is not silicon.Donor or silicon.Acceptor", dop)
 	}
-	if math.IsNaN(t) || math.IsInf(t, 0) || t <= 0 {
-		return nil, fmt.Errorf("profile: temperature t must be finite and > 0 K, got %g", t)
+	if err := check.Temperature("profile: sheet resistance", t); err != nil {
+		return nil, err
 	}
-	if math.IsNaN(background) || math.IsInf(background, 0) || background < 0 {
-		return nil, fmt.Errorf("profile: background density must be finite and >= 0 cm^-3, got %g", background)
+	if err := check.Density("profile: sheet resistance", "background density", background); err != nil {
+		return nil, err
 	}
 	in := &integrand{mob: mob, t: t, dop: dop, bg: background}
 	quad.Legendre{}.FixedLocations(in.x8[:], in.w8[:], -1, 1)

@@ -6,6 +6,7 @@ import (
 
 	"gonum.org/v1/gonum/interp"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -75,7 +76,7 @@ func (t *Tabulated) Data() (depth, density []float64) {
 // Density returns the interpolated density in cm^-3 at depth x in cm (see Tabulated), or an
 // error for an invalid x.
 func (t *Tabulated) Density(x float64) (float64, error) {
-	if err := checkDepth("Tabulated", x); err != nil {
+	if err := check.NonNegative("profile: Tabulated", "depth x", x, "cm"); err != nil {
 		return 0, err
 	}
 	n := len(t.depth)
