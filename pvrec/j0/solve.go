@@ -5,14 +5,10 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
-
-// ErrNotConverged is reported (through errors.Is) by Solver.Solve when the mesh reached
-// Solver.MaxNodes before J0 met the tolerance; the Result is still returned, with its
-// error estimate.
-var ErrNotConverged = errors.New("j0: mesh refinement did not reach the tolerance")
 
 // Region is a quasi-neutral doped region for the J0 solvers: the doping profile below the
 // front surface (x = 0), the front surface's recombination and the far boundary.
@@ -225,8 +221,8 @@ func (s Solver) prepare(r Region) (*setup, error) {
 // q S n_min0(0) u(0). The parts are extrapolated like J0, so that they add up to it.
 //
 // It returns an error for invalid models or region, a far boundary beyond the junction, an
-// error of a model, or an error wrapping ErrNotConverged (with the Result) if MaxNodes is
-// reached first.
+// error of a model, or an error matching pvrec.ErrNoConvergence (with the Result and its
+// error estimate) if the mesh reaches MaxNodes before J0 meets RelTol.
 func (s Solver) Solve(r Region) (Result, error) {
 	st, err := s.prepare(r)
 	if err != nil {
@@ -273,8 +269,8 @@ func (s Solver) Solve(r Region) (Result, error) {
 			if k >= 2 {
 				res.ErrEst = math.Abs(res.J0 - richardson(hist[k-2].j, hist[k-1].j))
 			}
-			return res, fmt.Errorf("%w: J0 = %g A/cm^2 with estimated error %.2g (relative) at %d nodes (MaxNodes %d)",
-				ErrNotConverged, res.J0, res.ErrEst/math.Abs(res.J0), len(nodes), st.maxNodes)
+			return res, check.NoConvergence("j0: mesh refinement did not reach the tolerance: J0 = %g A/cm^2 with estimated error %.2g (relative) at %d nodes (MaxNodes %d)",
+				res.J0, res.ErrEst/math.Abs(res.J0), len(nodes), st.maxNodes)
 		}
 		if nodes, err = st.bisect(nodes, nil); err != nil {
 			return Result{}, err

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
@@ -477,9 +478,9 @@ func TestSolveBadInput(t *testing.T) {
 	if _, err := NewSolver(m).Transparent(Region{Profile: good.Profile, Surface: FixedS(math.Inf(1))}); err == nil {
 		t.Errorf("Transparent with S = Inf: no error")
 	}
-	// MaxNodes reached: the result comes with ErrNotConverged.
+	// MaxNodes reached: the result comes with an error matching pvrec.ErrNoConvergence.
 	r, err := Solver{Models: m, RelTol: 1e-12, MaxNodes: 40}.Solve(good)
-	if !errors.Is(err, ErrNotConverged) || !(r.J0 > 0) || !(r.ErrEst > 0) {
+	if !errors.Is(err, pvrec.ErrNoConvergence) || !(r.J0 > 0) || !(r.ErrEst > 0) {
 		t.Errorf("MaxNodes: J0 %g ± %g, err %v", r.J0, r.ErrEst, err)
 	}
 }
