@@ -114,7 +114,9 @@
 // Fermi–Dirac factor F_{1/2}/F_{−1/2} where degenerate), Diffusivities (following the model
 // set's statistics), AmbipolarDiffusivity (W. van Roosbroeck, Phys. Rev. 91, 282 (1953)), and
 // the sum mobility μn + μp versus excess carrier density (SumMobility, SumMobilities and the
-// interpolating SumMobilityTable) for photoconductance analysis.
+// interpolating SumMobilityTable) for photoconductance analysis. Where a *Material is at hand,
+// its methods Material.Diffusivities, Material.SumMobility and Material.SumMobilityTable take
+// the temperature, the mobility model and the wafer's equilibrium state from it.
 //
 // Resistivity: Conductivity, Resistivity, ResistivityFromDoping and the bracketed inversion
 // DopingFromResistivity; checked against the conversion standard ASTM F723 and the NBS

@@ -78,11 +78,22 @@ func Diffusivities(mat *Material, mob Mobility, n, p, nd, na float64) (dn, dp fl
 		return 0, 0, err
 	}
 	dn, dp = mun*mat.Vt(), mup*mat.Vt()
-	if mat.Models().Statistics == FermiDirac {
+	if mat.ms.Statistics == FermiDirac {
 		dn *= degeneracyFactor(n / mat.Nc())
 		dp *= degeneracyFactor(p / mat.Nv())
 	}
 	return dn, dp, nil
+}
+
+// Diffusivities returns the electron and hole diffusivities Dn and Dp in cm²/s at electron and
+// hole densities n and p and ionised donor and acceptor densities nd and na (all cm^-3), with
+// the material's own mobility model (its ModelSet's Mobility): the package function
+// Diffusivities(m, m.Models().Mobility, n, p, nd, na).
+func (m *Material) Diffusivities(n, p, nd, na float64) (dn, dp float64, err error) {
+	if m == nil {
+		return 0, 0, fmt.Errorf("silicon: Material.Diffusivities: nil Material")
+	}
+	return Diffusivities(m, m.ms.Mobility, n, p, nd, na)
 }
 
 // AmbipolarDiffusivity returns the ambipolar diffusivity in cm²/s of excess carriers in a

@@ -31,6 +31,43 @@ func SumMobility(mob Mobility, eq Point, dn float64) (float64, error) {
 	return mun + mup, nil
 }
 
+// SumMobility returns μn + μp in cm²/(V·s) of the material's mobility model (its ModelSet's
+// Mobility) at its temperature, for silicon with donor and acceptor densities nd and na in
+// cm^-3 (finite, >= 0) in thermal equilibrium carrying the excess carrier density dn in cm^-3
+// (Δn = Δp, quasi-neutral, finite, >= 0): the package function SumMobility at the ionised
+// dopant and carrier densities of m.Equilibrium(nd, na). Each call solves the equilibrium
+// (about a microsecond); for many Δn of one wafer use m.SumMobilityTable. It returns an error
+// of Equilibrium, for an invalid dn, or an error of the mobility model.
+func (m *Material) SumMobility(nd, na, dn float64) (float64, error) {
+	eq, err := m.equilibriumPoint(nd, na)
+	if err != nil {
+		return 0, err
+	}
+	return SumMobility(m.ms.Mobility, eq, dn)
+}
+
+// SumMobilityTable returns the SumMobilityTable of m.SumMobility(nd, na, Δn) for
+// dnMin <= Δn <= dnMax (cm^-3) to relative tolerance relTol: NewSumMobilityTable with the
+// material's mobility model at the equilibrium state of m.Equilibrium(nd, na). It returns the
+// errors of Equilibrium and NewSumMobilityTable.
+func (m *Material) SumMobilityTable(nd, na, dnMin, dnMax, relTol float64) (*SumMobilityTable, error) {
+	eq, err := m.equilibriumPoint(nd, na)
+	if err != nil {
+		return nil, err
+	}
+	return NewSumMobilityTable(m.ms.Mobility, eq, dnMin, dnMax, relTol)
+}
+
+// equilibriumPoint returns the Point of silicon with dopant densities nd, na (cm^-3) in
+// thermal equilibrium at the material's temperature: ionised dopants and n0, p0.
+func (m *Material) equilibriumPoint(nd, na float64) (Point, error) {
+	eq, err := m.Equilibrium(nd, na)
+	if err != nil {
+		return Point{}, err
+	}
+	return Point{T: m.t, Nd: eq.NdIon, Na: eq.NaIon, N: eq.N0, P: eq.P0}, nil
+}
+
 // SumMobilities evaluates SumMobility at each excess carrier density of dn (cm^-3) and returns
 // the results in cm²/(V·s), stored in dst if it has the length of dn (otherwise in a new
 // slice). It costs one evaluation of mob per point; for repeated use on one wafer a
