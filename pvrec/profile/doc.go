@@ -46,12 +46,13 @@
 //
 // (the definition of the sheet resistance of a layer, for example S. M. Sze and K. K. Ng,
 // Physics of Semiconductor Devices, 3rd ed., Wiley 2007), with complete ionisation and the
-// majority-carrier density equal to the net doping. The majority-carrier mobility comes from
-// any silicon.Mobility, for example silicon.Klaassen1992 (D. B. M. Klaassen, Solid-State
-// Electron. 35, 953 and 961 (1992)) or silicon.Masetti1983 (G. Masetti, M. Severi and
-// S. Solmi, IEEE Trans. Electron Devices 30, 764 (1983)), evaluated with both dopant densities
-// (the background also scatters). SheetOf applies SheetResistanceFunc to a Profile made of a
-// layer on a uniform background.
+// majority-carrier density equal to the net doping. The temperature and the majority-carrier
+// mobility come from the *silicon.Material passed in (Material.Mobilities, its model set's
+// Mobility), for example silicon.Klaassen1992 (D. B. M. Klaassen, Solid-State Electron. 35, 953
+// and 961 (1992)) or silicon.Masetti1983 (G. Masetti, M. Severi and S. Solmi, IEEE Trans.
+// Electron Devices 30, 764 (1983)), evaluated with both dopant densities (the background also
+// scatters). SheetOf applies SheetResistanceFunc to a Profile made of a layer on a uniform
+// background.
 //
 // The integral is computed by adaptive Gauss–Legendre quadrature (see SheetRelTol): nodes
 // and weights from gonum.org/v1/gonum/integrate/quad.Legendre, with panels bisected until the
