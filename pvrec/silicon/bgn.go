@@ -18,11 +18,6 @@ import (
 // for the majority band, so the two differ by a few meV at 1e19 cm^-3 and by some 30 meV at
 // 1e20 cm^-3.
 
-// bgnMaxDensity is the density in cm^-3 above which any doping or carrier density in silicon is
-// meaningless: the atom density of silicon, 5.0e22 cm^-3 (handbook value, 8 atoms per cubic
-// cell of 0.5431 nm). Every BGN model of this package refuses densities above it.
-const bgnMaxDensity = 5.0e22
-
 // defaultBGN returns the package's default band-gap narrowing model, Schenk1998 with its
 // published parameters.
 func defaultBGN() BandgapNarrowing { return NewSchenk1998() }
@@ -36,19 +31,20 @@ var (
 	_ BandgapNarrowing = Schenk1998{}
 )
 
-// bgnCheckDensities validates pt and refuses densities above the silicon atom density.
+// bgnCheckDensities validates pt and refuses densities above the silicon atom density
+// AtomDensity.
 func bgnCheckDensities(model string, pt Point) error {
 	if err := pt.Validate(); err != nil {
 		return err
 	}
-	if v := pt.Nd + pt.Na; v > bgnMaxDensity {
-		return check.Range("silicon", model, "Nd + Na", "cm^-3", v, 0, bgnMaxDensity)
+	if v := pt.Nd + pt.Na; v > AtomDensity {
+		return check.Range("silicon", model, "Nd + Na", "cm^-3", v, 0, AtomDensity)
 	}
-	if pt.N > bgnMaxDensity {
-		return check.Range("silicon", model, "N", "cm^-3", pt.N, 0, bgnMaxDensity)
+	if pt.N > AtomDensity {
+		return check.Range("silicon", model, "N", "cm^-3", pt.N, 0, AtomDensity)
 	}
-	if pt.P > bgnMaxDensity {
-		return check.Range("silicon", model, "P", "cm^-3", pt.P, 0, bgnMaxDensity)
+	if pt.P > AtomDensity {
+		return check.Range("silicon", model, "P", "cm^-3", pt.P, 0, AtomDensity)
 	}
 	return nil
 }

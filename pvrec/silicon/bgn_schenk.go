@@ -99,10 +99,6 @@ func NewSchenk1998() Schenk1998 {
 // String returns "Schenk1998".
 func (Schenk1998) String() string { return "Schenk1998" }
 
-// schenkTMax is the melting point of silicon, 1687 K (1414 °C; handbook value), the upper end
-// of the temperatures at which Schenk1998 is evaluated.
-const schenkTMax = 1687
-
 // schenkMinScreening is the smallest ratio (n + p)/(Nd + Na) at which Schenk1998 is
 // evaluated (see its doc comment; this package's choice).
 const schenkMinScreening = 0.01
@@ -118,14 +114,21 @@ func (m Schenk1998) DeltaEg(pt Point) (float64, error) {
 // shift dEv of the valence-band edge in eV at pt (both >= 0 with the published parameters;
 // ΔEg = dEc + dEv). It returns an error for an invalid pt (naming the field), for T above
 // 1687 K, a density above 5e22 cm^-3 or a point without screening carriers (see Schenk1998;
-// all errors.Is(err, pvrec.ErrOutOfRange)), or if the parameters give a non-finite result.
+// all errors.Is(err, pvrec.ErrOutOfRange)), for Rydberg or Bohr not finite and > 0, or if
+// the parameters give a non-finite result.
 func (m Schenk1998) BandEdgeShifts(pt Point) (dEc, dEv float64, err error) {
 	const model = "Schenk1998"
 	if err := bgnCheckDensities(model, pt); err != nil {
 		return 0, 0, err
 	}
-	if pt.T > schenkTMax {
-		return 0, 0, check.Range("silicon", model, "temperature T", "K", pt.T, 0, schenkTMax)
+	if pt.T > MeltingPoint {
+		return 0, 0, check.Range("silicon", model, "temperature T", "K", pt.T, 0, MeltingPoint)
+	}
+	if err := check.Positive("silicon: "+model, "parameter Rydberg", m.Rydberg, "eV"); err != nil {
+		return 0, 0, err
+	}
+	if err := check.Positive("silicon: "+model, "parameter Bohr", m.Bohr, "cm"); err != nil {
+		return 0, 0, err
 	}
 	nSum := pt.N + pt.P
 	nIon := pt.Nd + pt.Na

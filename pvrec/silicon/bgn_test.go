@@ -110,7 +110,9 @@ func TestBGNBadParameters(t *testing.T) {
 		{KlaassenSlotboomDeGraaff1992{E1: 6.92e-3, N0: 1.3e17, C: -1}, "C"},
 		{DelAlamoSwanson1987{E1: 18.7e-3, N0: -7e17}, "N0"},
 		{DelAlamoSwanson1987{E1: math.Inf(1), N0: 7e17}, "E1"},
-		{Schenk1998{}, "non-finite"}, // zero Rydberg and Bohr radius
+		{Schenk1998{}, "Rydberg"}, // the zero value: zero Rydberg and Bohr radius
+		{Schenk1998{Rydberg: 16.55e-3}, "Bohr"},
+		{func() Schenk1998 { m := NewSchenk1998(); m.Electron.G = 0; return m }(), "non-finite"},
 	}
 	for _, tc := range tests {
 		d, err := tc.m.DeltaEg(pt)

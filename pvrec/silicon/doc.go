@@ -19,7 +19,14 @@
 // Units are cm^-3, K, eV and V. Bad input (NaN, ±Inf, negative densities, T <= 0) returns an
 // error naming the argument; a temperature or density outside a model's validity range returns
 // an error for which errors.Is(err, pvrec.ErrOutOfRange) holds (a *pvrec.RangeError, from
-// github.com/pvrec/pvrec/pvrec).
+// github.com/pvrec/pvrec/pvrec). Two physical bounds hold everywhere: no density above the
+// silicon atom density AtomDensity (5e22 cm^-3) and no temperature above the melting point
+// MeltingPoint (1687 K). Results that would not be finite are errors, never ±Inf or NaN.
+//
+// Zero values: only ModelSet.At makes a usable *Material; the methods of a zero or nil
+// Material return an error. Models are values; ModelSet.At refuses pointer models, so a fixed
+// Material cannot be changed by the caller afterwards. The zero values of the models carry no
+// parameters and return errors (their validity ranges are empty).
 //
 // # How the models combine
 //

@@ -164,7 +164,7 @@ func (m Couderc2014) Ni(t float64) (float64, error) {
 }
 
 // FixedNi is a temperature-independent intrinsic carrier density for hand calculations:
-// ni(T) = Value for every T > 0. NewFixedNi returns 1.00e10 cm^-3, the 300 K value of
+// ni(T) = Value for every 0 < T <= MeltingPoint. NewFixedNi returns 1.00e10 cm^-3, the 300 K value of
 // A. B. Sproul and M. A. Green, J. Appl. Phys. 70, 846 (1991) and the round number of hand
 // calculations; use it only at the temperature its value belongs to.
 type FixedNi struct {
@@ -177,10 +177,10 @@ func NewFixedNi() FixedNi { return FixedNi{Value: 1.00e10} }
 // String returns "FixedNi(1e+10 cm^-3)" with the model's value.
 func (m FixedNi) String() string { return fmt.Sprintf("FixedNi(%g cm^-3)", m.Value) }
 
-// Ni returns m.Value in cm^-3 for any finite t > 0 K, and an error for invalid t or a
-// non-finite or non-positive Value.
+// Ni returns m.Value in cm^-3 for 0 < t <= MeltingPoint, and an error for an invalid t, a
+// t above the melting point, or a non-finite or non-positive Value.
 func (m FixedNi) Ni(t float64) (float64, error) {
-	if err := check.Temperature("silicon", t); err != nil {
+	if err := checkSolid("FixedNi", t); err != nil {
 		return 0, err
 	}
 	return checkNi(m.String(), t, m.Value)

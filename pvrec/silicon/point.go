@@ -34,16 +34,29 @@ func (pt Point) Validate() error {
 }
 
 // checkDensities validates the carrier and ionised dopant densities n, p, nd, na (cm^-3) of
-// Material's methods, naming the first invalid one.
+// Material's methods, naming the first invalid one: each finite, >= 0 and at most AtomDensity.
 func checkDensities(n, p, nd, na float64) error {
-	if err := check.Density("silicon", "density n", n); err != nil {
+	if err := checkAtoms("density n", n); err != nil {
 		return err
 	}
-	if err := check.Density("silicon", "density p", p); err != nil {
+	if err := checkAtoms("density p", p); err != nil {
 		return err
 	}
-	if err := check.Density("silicon", "density nd", nd); err != nil {
+	if err := checkAtoms("density nd", nd); err != nil {
 		return err
 	}
-	return check.Density("silicon", "density na", na)
+	return checkAtoms("density na", na)
+}
+
+// checkAtoms returns an error unless v is a finite density >= 0 cm^-3, and a range error
+// if it exceeds the silicon atom density; name is a constant such as "density n".
+func checkAtoms(name string, v float64) error {
+	if err := check.Density("silicon", name, v); err != nil {
+		return err
+	}
+	if v > AtomDensity {
+		return check.Rangef("silicon", name, v, 0, AtomDensity,
+			"silicon: %s = %g cm^-3 above the silicon atom density %g cm^-3", name, v, AtomDensity)
+	}
+	return nil
 }
