@@ -110,7 +110,7 @@ func JunctionDepth(p Profile) (float64, error) {
 }
 
 // Dose returns the dose ∫ N dx in cm^-2 of dopant d of profile p between depths x0 and x1 in
-// cm (0 <= x0 <= x1, finite), for example the phosphorus dose of an emitter over the depth of
+// cm (0 <= x0 <= x1 <= MaxDepthCm), for example the phosphorus dose of an emitter over the depth of
 // a measurement, or the net dose of the layer above the junction (see NetDose).
 //
 // Method: 16-point Gauss–Legendre quadrature (gonum integrate/quad) on 256 equal panels of
@@ -118,7 +118,8 @@ func JunctionDepth(p Profile) (float64, error) {
 // profiles and the log-linear segments of tabulated ones the relative error is below 1e-12
 // unless a feature is narrower than (x1 − x0)/256.
 //
-// It returns an error for an invalid d, x0 or x1, or an error of p.
+// It returns an error for an invalid d, x0 or x1, an error of p, or an error if p gives a
+// density that is not finite and >= 0.
 func Dose(p Profile, d silicon.Dopant, x0, x1 float64) (float64, error) {
 	if d != silicon.Donor && d != silicon.Acceptor {
 		return 0, fmt.Errorf("profile: Dose: dopant d must be silicon.Donor or silicon.Acceptor, got %d", d)
@@ -154,6 +155,9 @@ func integrate(p Profile, ctx string, x0, x1 float64, f func(nd, na float64) flo
 	if math.IsNaN(x1) || math.IsInf(x1, 0) || x1 < x0 {
 		return 0, fmt.Errorf("%s: depth x1 must be finite and >= x0 = %g cm, got %g", ctx, x0, x1)
 	}
+	if err := checkLength(ctx, "depth x1", x1, true); err != nil {
+		return 0, err
+	}
 	if x1 == x0 {
 		return 0, nil
 	}
@@ -171,8 +175,17 @@ func integrate(p Profile, ctx string, x0, x1 float64, f func(nd, na float64) flo
 	var ferr error
 	g := func(x float64) float64 {
 		nd, na, err := p.Dopants(x)
-		if err != nil && ferr == nil {
-			ferr = err
+		if err == nil {
+			// A user Profile may return anything: hold it to the interface's contract.
+			if err = checkDensity(ctx, "donor density", nd); err == nil {
+				err = checkDensity(ctx, "acceptor density", na)
+			}
+		}
+		if err != nil {
+			if ferr == nil {
+				ferr = err
+			}
+			return 0
 		}
 		return f(nd, na)
 	}

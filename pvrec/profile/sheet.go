@@ -45,8 +45,9 @@ type Sheet struct {
 // sampling, not of the quadrature.
 //
 // It returns an error for a nil m, an invalid dop, arrays of different lengths or
-// fewer than 2 samples, depths not finite, not increasing or negative, densities not finite
-// or negative, a background not finite or negative, a surface density not above the
+// fewer than 2 samples, depths not finite, not increasing, negative or beyond MaxDepthCm,
+// densities or a background not finite, negative or above silicon.AtomDensity (range errors
+// for the bounds), a surface density not above the
 // background (no layer), or an error of the mobility model.
 func SheetResistance(m *silicon.Material, dop silicon.Dopant, depthCm, density []float64, background float64) (Sheet, error) {
 	in, err := newIntegrand(m, dop, background)
@@ -63,11 +64,18 @@ func SheetResistance(m *silicon.Material, dop silicon.Dopant, depthCm, density [
 		if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
 			return Sheet{}, fmt.Errorf("profile: depth must be finite and >= 0 cm (index %d: %g)", i, x)
 		}
+		if x > MaxDepthCm {
+			return Sheet{}, check.Rangef("SheetResistance", "depth", x, 0, MaxDepthCm,
+				"profile: depth %g cm beyond MaxDepthCm = %g cm (index %d)", x, MaxDepthCm, i)
+		}
 		if i > 0 && !(x > depthCm[i-1]) {
 			return Sheet{}, fmt.Errorf("profile: depth must increase (index %d: %g after %g)", i, x, depthCm[i-1])
 		}
 		if v := density[i]; math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
 			return Sheet{}, fmt.Errorf("profile: density must be finite and >= 0 cm^-3 (index %d: %g)", i, v)
+		} else if v > silicon.AtomDensity {
+			return Sheet{}, check.Rangef("SheetResistance", "density", v, 0, silicon.AtomDensity,
+				"profile: density %g cm^-3 above the silicon atom density %g cm^-3 (index %d)", v, silicon.AtomDensity, i)
 		}
 	}
 	if !(density[0] > background) {
@@ -142,10 +150,11 @@ func SheetResistance(m *silicon.Material, dop silicon.Dopant, depthCm, density [
 // must be smooth on that scale or the adaptive refinement has to find its features (a
 // feature narrower than xj/64 between Gauss nodes can be missed).
 //
-// It returns an error for a nil m or density, an invalid dop, depthCm not finite and > 0, a
-// background not finite or negative, a density value not finite or negative (naming the
-// depth), a surface density not above the background, an integral that does not reach the
-// tolerance, or an error of the mobility model.
+// It returns an error for a nil m or density, an invalid dop, depthCm not finite and > 0 or
+// beyond MaxDepthCm, a background not finite, negative or above silicon.AtomDensity, a
+// density value not finite, negative or above the atom density (naming the depth), a surface
+// density not above the background, an integral that does not reach the tolerance, or an
+// error of the mobility model.
 func SheetResistanceFunc(m *silicon.Material, dop silicon.Dopant, density func(xCm float64) float64, depthCm, background float64) (Sheet, error) {
 	in, err := newIntegrand(m, dop, background)
 	if err != nil {
@@ -154,14 +163,19 @@ func SheetResistanceFunc(m *silicon.Material, dop silicon.Dopant, density func(x
 	if density == nil {
 		return Sheet{}, fmt.Errorf("profile: SheetResistanceFunc needs a non-nil density function")
 	}
-	if err := check.Positive("profile: SheetResistanceFunc", "depth depthCm", depthCm, "cm"); err != nil {
+	if err := checkLength("profile: SheetResistanceFunc", "depth depthCm", depthCm, false); err != nil {
 		return Sheet{}, err
 	}
 	var ferr error
 	dens := func(x float64) float64 {
 		v := density(x)
-		if (math.IsNaN(v) || math.IsInf(v, 0) || v < 0) && ferr == nil {
-			ferr = fmt.Errorf("profile: density(%g cm) = %g; must be finite and >= 0 cm^-3", x, v)
+		if ferr == nil {
+			if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+				ferr = fmt.Errorf("profile: density(%g cm) = %g; must be finite and >= 0 cm^-3", x, v)
+			} else if v > silicon.AtomDensity {
+				ferr = check.Rangef("SheetResistanceFunc", "density", v, 0, silicon.AtomDensity,
+					"profile: density(%g cm) = %g cm^-3 above the silicon atom density %g cm^-3", x, v, silicon.AtomDensity)
+			}
 		}
 		return v
 	}
@@ -233,6 +247,9 @@ func SheetResistanceFunc(m *silicon.Material, dop silicon.Dopant, density func(x
 // resistance of a high–low junction's layer is not separable from the wafer's), an error if
 // the background is not uniform, or an error of p or of SheetResistanceFunc.
 func SheetOf(p Profile, m *silicon.Material) (Sheet, error) {
+	if m == nil {
+		return Sheet{}, fmt.Errorf("profile: SheetOf needs a non-nil *silicon.Material")
+	}
 	maj, err := Majority(p)
 	if err != nil {
 		return Sheet{}, err
@@ -309,7 +326,7 @@ func newIntegrand(m *silicon.Material, dop silicon.Dopant, background float64) (
 	if dop != silicon.Donor && dop != silicon.Acceptor {
 		return nil, fmt.Errorf("profile: dopant type dop = %v is not silicon.Donor or silicon.Acceptor", dop)
 	}
-	if err := check.Density("profile: sheet resistance", "background density", background); err != nil {
+	if err := checkDensity("profile: sheet resistance", "background density", background); err != nil {
 		return nil, err
 	}
 	in := &integrand{mat: m, dop: dop, bg: background}
@@ -383,8 +400,8 @@ func (in *integrand) adapt(f func(float64) float64, a, b, i16, tol float64, dept
 
 // result packs the sheet conductance g (S) and its error estimate.
 func (in *integrand) result(g, errSum, xj float64) (Sheet, error) {
-	if !(g > 0) || math.IsInf(g, 0) {
-		return Sheet{}, fmt.Errorf("profile: sheet conductance %g S is not finite and > 0", g)
+	if !(g > 0) || math.IsInf(g, 0) || math.IsInf(1/g, 0) {
+		return Sheet{}, fmt.Errorf("profile: sheet conductance %g S is not finite and > 0 (or too small for a finite Rsh)", g)
 	}
 	return Sheet{Rsh: 1 / g, RelErr: errSum / g, XjCm: xj}, nil
 }
