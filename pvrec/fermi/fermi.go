@@ -55,7 +55,9 @@ func (o *order) chebyshev(eta float64) float64 {
 // the reduced carrier density n/Nc of a parabolic band at reduced Fermi level η.
 // The relative error is below 2e-15 (verified against mpmath over [−50, 100]; the methods,
 // listed in the package documentation, are uniformly accurate beyond that range). For η
-// below about −708, where e^η underflows, the result underflows with it.
+// below about −708, where e^η underflows, the result underflows with it; above about 3.8e205,
+// where F_{1/2}(η) ≈ η^{3/2}/Γ(5/2) exceeds the largest float64, it overflows to +Inf, as
+// math.Exp does.
 //
 // Special cases are:
 //
@@ -81,7 +83,8 @@ func Half(eta float64) float64 {
 //	F_{−1/2}(η) = 1/Γ(1/2) ∫_0^∞ t^{−1/2} / (1 + exp(t − η)) dt = dF_{1/2}/dη.
 //
 // The relative error is below 2e-15 (verified against mpmath over [−50, 100]); for η below
-// about −708 the result underflows with e^η.
+// about −708 the result underflows with e^η. It is finite for every finite η (at most
+// 1.6e154).
 //
 // Special cases are:
 //

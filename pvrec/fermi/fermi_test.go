@@ -355,3 +355,21 @@ func FuzzInvHalf(f *testing.F) {
 		}
 	})
 }
+
+// TestOverflowThresholds checks the documented ends of the finite range of the forward
+// functions for large η: F_{1/2} overflows between 3.8e205 and 3.9e205 (η^{3/2}/Γ(5/2) =
+// MaxFloat64 at 3.85e205), F_{3/2} above 1.2e123 (η^{5/2}/Γ(7/2)), and F_{−1/2} stays finite.
+func TestOverflowThresholds(t *testing.T) {
+	if v := Half(3.8e205); math.IsInf(v, 0) {
+		t.Errorf("Half(3.8e205) = %g", v)
+	}
+	if v := Half(3.9e205); !math.IsInf(v, 1) {
+		t.Errorf("Half(3.9e205) = %g, want +Inf", v)
+	}
+	if v := ThreeHalf(1.2e123); math.IsInf(v, 0) {
+		t.Errorf("ThreeHalf(1.2e123) = %g", v)
+	}
+	if v := MinusHalf(math.MaxFloat64); math.IsInf(v, 0) || !(v > 0) {
+		t.Errorf("MinusHalf(MaxFloat64) = %g", v)
+	}
+}
