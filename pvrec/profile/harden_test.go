@@ -226,3 +226,22 @@ func TestReadCSVStrict(t *testing.T) {
 		t.Errorf("WriteCSV of a comment with a CR: no error")
 	}
 }
+
+// TestDopantsAllocationFree: evaluating a profile, the J0 solver's inner call, allocates
+// nothing (issue 9: validation builds no message on the success path).
+func TestDopantsAllocationFree(t *testing.T) {
+	tab, err := NewTabulated(silicon.Donor, []float64{0, 1e-5, 1e-4}, []float64{1e20, 1e19, 1e15})
+	if err != nil {
+		t.Fatal(err)
+	}
+	bg := Uniform{Dopant: silicon.Acceptor, N: 1.5e16}
+	for name, p := range map[string]Profile{
+		"Erfc on a wafer":      Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 0.3e-4}, bg},
+		"Gaussian":             Gaussian{Dopant: silicon.Donor, Peak: 1e19, Center: 1e-5, Length: 1e-5},
+		"Tabulated on a wafer": Sum{tab, bg},
+	} {
+		if a := testing.AllocsPerRun(100, func() { _, _, _ = p.Dopants(3e-5) }); a != 0 {
+			t.Errorf("%s: %g allocations per call, want 0", name, a)
+		}
+	}
+}

@@ -279,3 +279,31 @@ func TestAmbipolarNoOverflow(t *testing.T) {
 		}
 	}
 }
+
+// TestHotPathsAllocationFree: the evaluations that later packages make per point allocate
+// nothing (validation builds no message on the success path; issue 9). Allocation counts are
+// deterministic, unlike times.
+func TestHotPathsAllocationFree(t *testing.T) {
+	m := mustAt(t, DefaultModelSet(), 300)
+	k, s, g, c := NewKlaassen1992(), NewSchenk1998(), NewPassler2002(), NewCouderc2014()
+	pt := Point{T: 300, Nd: 1e19, N: 1.001e19, P: 1e16}
+	for name, f := range map[string]func(){
+		"Material.NiEff":       func() { _, _ = m.NiEff(1.1e16, 1e15, 1e16, 0) },
+		"Material.NiEff (FD)":  func() { _, _ = m.NiEff(1e20, 1e3, 1e20, 0) },
+		"Material.Equilibrium": func() { _, _ = m.Equilibrium(0, 1e16) },
+		"Material.Mobilities":  func() { _, _, _ = m.Mobilities(1e14, 9.1e15, 1e15, 1e16) },
+		"Material.SumMobility": func() { _, _ = m.SumMobility(0, 1e16, 1e15) },
+		"Klaassen1992":         func() { _, _, _ = k.Mobilities(pt) },
+		"Masetti1983":          func() { _, _, _ = NewMasetti1983().Mobilities(pt) },
+		"Schenk1998":           func() { _, _ = s.DeltaEg(pt) },
+		"Slotboom":             func() { _, _ = NewKlaassenSlotboomDeGraaff1992().DeltaEg(pt) },
+		"Passler2002":          func() { _, _ = g.Eg(300) },
+		"Couderc2014":          func() { _, _ = c.Ni(300) },
+		"Green1990DOS":         func() { _, _, _ = NewGreen1990DOS().NcNv(300) },
+		"Diffusivities":        func() { _, _, _ = m.Diffusivities(1e20, 1e3, 1e20, 0) },
+	} {
+		if a := testing.AllocsPerRun(100, f); a != 0 {
+			t.Errorf("%s: %g allocations per call, want 0", name, a)
+		}
+	}
+}
