@@ -73,8 +73,9 @@ var palette = []color.RGBA{
 // returns an error naming the series and point for mismatched lengths, empty series, NaN or
 // infinite values, or non-positive values on a logarithmic axis, and an error if the values on
 // a linear axis span more than a float64 can hold (max − min overflows). An axis whose values
-// are all equal is drawn over ±10 % of the value (linear; ±1 at 0) or one decade either side
-// (logarithmic).
+// are all equal v is drawn over [v − 1, v + 1] as gonum/plot does, or, where that range is
+// empty (|v| above 2^53) or not positive on a logarithmic axis, over ±10 % of v
+// (logarithmic: a decade either side).
 func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 	if len(series) == 0 {
 		return nil, fmt.Errorf("plots: no series to draw")
@@ -155,10 +156,11 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 }
 
 // setRange sets the range of axis a (named name, logarithmic if log) to that of the values
-// of every series, padded when they are all equal, where gonum/plot would pad by ±1: below
-// the resolution of large values (an "illegal range" panic) or to 0 on a log axis (a panic).
-// It returns an error if max − min overflows on a linear axis (gonum/plot then hangs in its
-// tick search). The data added later leave the range as set, since it holds them.
+// of every series. When they are all equal it pads them by ±1 as gonum/plot would, unless that
+// fails: below the resolution of large values (gonum/plot's "illegal range" panic) or to 0 or
+// less on a log axis (a panic); then it pads by 10 % (a decade on a log axis). It returns an
+// error if max − min overflows on a linear axis (gonum/plot then hangs in its tick search).
+// The data added later leave the range as set, since it holds them.
 func setRange(a *plot.Axis, name string, log bool, series []Series, vals func(Series) []float64) error {
 	lo, hi := math.Inf(1), math.Inf(-1)
 	for _, s := range series {
@@ -170,10 +172,10 @@ func setRange(a *plot.Axis, name string, log bool, series []Series, vals func(Se
 	case !log && math.IsInf(hi-lo, 0):
 		return fmt.Errorf("plots: %s values from %g to %g span more than a float64 holds; rescale them", name, lo, hi)
 	case lo < hi:
+	case lo-1 < hi+1 && (!log || lo-1 > 0):
+		lo, hi = lo-1, hi+1
 	case log:
 		lo, hi = math.Max(lo/10, math.SmallestNonzeroFloat64), math.Min(hi*10, math.MaxFloat64)
-	case lo == 0:
-		lo, hi = -1, 1
 	default:
 		d := 0.1 * math.Abs(lo)
 		lo, hi = math.Max(lo-d, -math.MaxFloat64), math.Min(hi+d, math.MaxFloat64)

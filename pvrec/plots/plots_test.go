@@ -165,6 +165,10 @@ func TestLinesHostile(t *testing.T) {
 	if _, err := Encode(&plot.Plot{}, DefaultWidth, DefaultHeight, "png"); err == nil {
 		t.Errorf("Encode of a zero plot.Plot: no error")
 	}
+	// Where gonum/plot's own padding by ±1 works, it is kept.
+	if p, err := Lines(Axes{LogY: true}, Series{X: []float64{1, 2}, Y: []float64{5, 5}}); err != nil || p.Y.Min != 4 || p.Y.Max != 6 {
+		t.Errorf("constant 5 on a log axis: range [%g, %g], %v; want [4, 6]", p.Y.Min, p.Y.Max, err)
+	}
 	if _, err := Func("nil", []float64{1}, nil); err == nil {
 		t.Errorf("Func with a nil function: no error")
 	}
