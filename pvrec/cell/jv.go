@@ -81,7 +81,7 @@ func solveX(f func(x float64) (float64, error), x0 float64, what string, arg flo
 // brentErr turns an error of roots into one matching pvrec.ErrNoConvergence (errors of the
 // models pass unchanged).
 func brentErr(what string, err error) error {
-	if errors.Is(err, roots.ErrNoConvergence) || errors.Is(err, roots.ErrNoBracket) {
+	if errors.Is(err, check.ErrNoConvergence) || errors.Is(err, roots.ErrNoBracket) {
 		return check.NoConvergence("cell: %s: %v", what, err)
 	}
 	return err

@@ -20,7 +20,7 @@
 //
 // The forward functions follow the style of package math: they take any float64, return
 // NaN for NaN, 0 at −Inf and +Inf at +Inf, and have no error result. InvHalf, whose
-// domain is y > 0, returns an error wrapping ErrDomain outside it.
+// domain is y > 0, returns NaN and an error naming y outside it.
 //
 // # Methods and references
 //

@@ -37,5 +37,5 @@ func ExampleInvHalf() {
 	fmt.Println(err)
 	// Output:
 	// η = 3.2695360281, F_1/2(η) = 5.000000000000
-	// fermi: argument out of domain: InvHalf needs finite y > 0, got y = -1
+	// fermi: InvHalf: y must be finite and > 0, got -1
 }

@@ -2,7 +2,6 @@ package fermi
 
 import (
 	"encoding/csv"
-	"errors"
 	"math"
 	"os"
 	"strconv"
@@ -321,9 +320,7 @@ func TestInvHalfErrors(t *testing.T) {
 		switch {
 		case err == nil:
 			t.Errorf("InvHalf(%g) = %g, want an error", y, eta)
-		case !errors.Is(err, ErrDomain):
-			t.Errorf("InvHalf(%g): error %v does not wrap ErrDomain", y, err)
-		case !strings.HasPrefix(err.Error(), "fermi: ") || !strings.Contains(err.Error(), " y "):
+		case !strings.HasPrefix(err.Error(), "fermi: InvHalf: y must be finite and > 0"):
 			t.Errorf("InvHalf(%g): error %q must start with the package and name y", y, err)
 		case !math.IsNaN(eta):
 			t.Errorf("InvHalf(%g) returned %g with its error, want NaN", y, eta)
@@ -357,4 +354,22 @@ func FuzzInvHalf(f *testing.F) {
 			}
 		}
 	})
+}
+
+// TestOverflowThresholds checks the documented ends of the finite range of the forward
+// functions for large η: F_{1/2} overflows between 3.8e205 and 3.9e205 (η^{3/2}/Γ(5/2) =
+// MaxFloat64 at 3.85e205), F_{3/2} above 1.2e123 (η^{5/2}/Γ(7/2)), and F_{−1/2} stays finite.
+func TestOverflowThresholds(t *testing.T) {
+	if v := Half(3.8e205); math.IsInf(v, 0) {
+		t.Errorf("Half(3.8e205) = %g", v)
+	}
+	if v := Half(3.9e205); !math.IsInf(v, 1) {
+		t.Errorf("Half(3.9e205) = %g, want +Inf", v)
+	}
+	if v := ThreeHalf(1.2e123); math.IsInf(v, 0) {
+		t.Errorf("ThreeHalf(1.2e123) = %g", v)
+	}
+	if v := MinusHalf(math.MaxFloat64); math.IsInf(v, 0) || !(v > 0) {
+		t.Errorf("MinusHalf(MaxFloat64) = %g", v)
+	}
 }

@@ -4,15 +4,12 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"reflect"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
-
-// ErrNotConverged is reported (through errors.Is) by Solver.Solve when the mesh reached
-// Solver.MaxNodes before J0 met the tolerance; the Result is still returned, with its
-// error estimate.
-var ErrNotConverged = errors.New("j0: mesh refinement did not reach the tolerance")
 
 // Region is a quasi-neutral doped region for the J0 solvers: the doping profile below the
 // front surface (x = 0), the front surface's recombination and the far boundary.
@@ -23,12 +20,18 @@ type Region struct {
 	// the profile's first junction at zero bias (see SpaceChargeRegion): the J0 of an emitter.
 	// A positive depth is used as given: the J0 of a high–low junction (a surface field
 	// region) or of a region cut at a chosen depth; the net doping must keep its sign to it.
+	// It may not exceed profile.MaxDepthCm.
 	Depth float64
 }
 
 // Solver is the numerical J0 solver for a heavily doped, quasi-neutral region (see Solve).
 // The zero values of RelTol, MaxNodes and InitialStep select the defaults. A Solver is a
-// value, safe for concurrent use.
+// value, safe for concurrent use. The zero Solver has no Models: Solve returns an error.
+//
+// MaxNodes bounds the work from the first mesh on: an InitialStep so small that the initial
+// mesh would not leave room for a second one within MaxNodes is an error before anything is
+// solved. Time and memory grow linearly with the nodes (about a microsecond and 200 bytes per
+// node and mesh with the default models).
 type Solver struct {
 	Models              // physical models
 	RelTol      float64 // relative change of J0 between successive meshes at which refinement stops; 0: 1e-3
@@ -99,14 +102,18 @@ func (s Solver) prepare(r Region) (*setup, error) {
 	if err := s.Models.validate(); err != nil {
 		return nil, err
 	}
-	if r.Profile == nil {
+	if isNil(r.Profile) {
 		return nil, fmt.Errorf("j0: Region.Profile is nil")
 	}
-	if r.Surface == nil {
+	if isNil(r.Surface) {
 		return nil, fmt.Errorf("j0: Region.Surface is nil (use FixedS(0) for an ideal surface)")
 	}
 	if math.IsNaN(r.Depth) || math.IsInf(r.Depth, 0) || r.Depth < 0 {
 		return nil, fmt.Errorf("j0: Region.Depth must be finite and >= 0 cm, got %g", r.Depth)
+	}
+	if r.Depth > profile.MaxDepthCm {
+		return nil, check.Rangef("Region", "Depth", r.Depth, 0, profile.MaxDepthCm,
+			"j0: Region.Depth = %g cm beyond profile.MaxDepthCm = %g cm", r.Depth, profile.MaxDepthCm)
 	}
 	st := &setup{relTol: s.RelTol, maxNodes: s.MaxNodes, step: s.InitialStep}
 	if st.relTol == 0 {
@@ -174,6 +181,20 @@ func (s Solver) prepare(r Region) (*setup, error) {
 	return st, nil
 }
 
+// isNil reports whether v is nil or holds a nil pointer, map, slice or function (whose
+// methods would panic; an empty profile.Sum is not nil, but a nil one is undoped silicon and
+// is kept).
+func isNil(v any) bool {
+	if v == nil {
+		return true
+	}
+	switch rv := reflect.ValueOf(v); rv.Kind() {
+	case reflect.Pointer, reflect.Map, reflect.Func, reflect.Chan:
+		return rv.IsNil()
+	}
+	return false
+}
+
 // Solve returns J0 of region r with its breakdown and depth distribution.
 //
 // Equations. In the quasi-neutral region under low injection the majority carriers stay in
@@ -225,14 +246,17 @@ func (s Solver) prepare(r Region) (*setup, error) {
 // q S n_min0(0) u(0). The parts are extrapolated like J0, so that they add up to it.
 //
 // It returns an error for invalid models or region, a far boundary beyond the junction, an
-// error of a model, or an error wrapping ErrNotConverged (with the Result) if MaxNodes is
-// reached first.
+// error of a model, or an error matching pvrec.ErrNoConvergence: without a Result if the
+// initial mesh leaves no room for a second mesh within MaxNodes (an InitialStep too small for
+// MaxNodes), with the Result and its error estimate if the mesh reaches MaxNodes before J0
+// meets RelTol (the estimate is then the difference of the last two extrapolations, or of the
+// last two meshes when only two were solved).
 func (s Solver) Solve(r Region) (Result, error) {
 	st, err := s.prepare(r)
 	if err != nil {
 		return Result{}, err
 	}
-	xs, err := initialMesh(r.Profile, st.w, st.step)
+	xs, err := initialMeshMax(r.Profile, st.w, st.step, st.maxNodes)
 	if err != nil {
 		return Result{}, err
 	}
@@ -244,6 +268,10 @@ func (s Solver) Solve(r Region) (Result, error) {
 	}
 	if nodes, err = st.preRefine(nodes); err != nil {
 		return Result{}, err
+	}
+	if 2*len(nodes)-1 > st.maxNodes {
+		return Result{}, check.NoConvergence("j0: the initial mesh of %d nodes (InitialStep %g) leaves no room for a second mesh within MaxNodes = %d: no error estimate is possible; raise MaxNodes or InitialStep",
+			len(nodes), st.step, st.maxNodes)
 	}
 	var ws work
 	var hist []meshSol // solutions of the meshes so far
@@ -269,12 +297,15 @@ func (s Solver) Solve(r Region) (Result, error) {
 			}
 		}
 		if 2*len(nodes)-1 > st.maxNodes {
-			res := st.result(&ws, nodes, hist, math.Inf(1))
+			// Error estimate: the difference of the last two extrapolations, or with only two
+			// meshes that of the meshes themselves (the larger, conservative choice).
+			est := math.Abs(hist[k].j - hist[k-1].j)
+			res := st.result(&ws, nodes, hist, est)
 			if k >= 2 {
 				res.ErrEst = math.Abs(res.J0 - richardson(hist[k-2].j, hist[k-1].j))
 			}
-			return res, fmt.Errorf("%w: J0 = %g A/cm^2 with estimated error %.2g (relative) at %d nodes (MaxNodes %d)",
-				ErrNotConverged, res.J0, res.ErrEst/math.Abs(res.J0), len(nodes), st.maxNodes)
+			return res, check.NoConvergence("j0: mesh refinement did not reach the tolerance: J0 = %g A/cm^2 with estimated error %.2g (relative) at %d nodes (MaxNodes %d)",
+				res.J0, res.ErrEst/math.Abs(res.J0), len(nodes), st.maxNodes)
 		}
 		if nodes, err = st.bisect(nodes, nil); err != nil {
 			return Result{}, err
@@ -343,9 +374,19 @@ func (st *setup) preRefine(nodes []local) ([]local, error) {
 // initial step of ln N before a cell is bisected by preRefine.
 const preRefineFactor = 3.0
 
-// initialMesh returns nodes on [0, w] that equidistribute |d ln|N|/dx| / step + 4/w, from
-// 48 samples of the net doping N.
+// maxInitialNodes bounds the initial mesh of the integral forms (Transparent, Gummel), which
+// take no MaxNodes of their own: 65537 nodes, 16 times the default MaxNodes.
+const maxInitialNodes = 1<<16 + 1
+
+// initialMesh is initialMeshMax with the bound maxInitialNodes.
 func initialMesh(p profile.Profile, w, step float64) ([]float64, error) {
+	return initialMeshMax(p, w, step, maxInitialNodes)
+}
+
+// initialMeshMax returns nodes on [0, w] that equidistribute |d ln|N|/dx| / step + 4/w, from
+// 48 samples of the net doping N, or an error, before allocating them, if they would be more
+// than maxNodes.
+func initialMeshMax(p profile.Profile, w, step float64, maxNodes int) ([]float64, error) {
 	const samples = 48
 	const minCells = 4
 	g := make([]float64, samples+1)
@@ -363,10 +404,12 @@ func initialMesh(p profile.Profile, w, step float64) ([]float64, error) {
 	for i := 1; i <= samples; i++ {
 		cum[i] = cum[i-1] + math.Abs(g[i]-g[i-1])/step + float64(minCells)/samples
 	}
-	n := int(math.Ceil(cum[samples] - 1e-9))
-	if n < minCells {
-		n = minCells
+	cells := math.Max(math.Ceil(cum[samples]-1e-9), minCells)
+	if !(cells+1 <= float64(maxNodes)) { // also +Inf and NaN, before any allocation
+		return nil, check.NoConvergence("j0: Solver.InitialStep = %g gives an initial mesh of %.3g nodes, more than MaxNodes = %d; raise InitialStep (or MaxNodes)",
+			step, cells+1, maxNodes)
 	}
+	n := int(cells)
 	xs := make([]float64, n+1)
 	k := 0
 	for j := 1; j < n; j++ {

@@ -6,6 +6,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/internal/reftable"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
@@ -477,9 +478,9 @@ func TestSolveBadInput(t *testing.T) {
 	if _, err := NewSolver(m).Transparent(Region{Profile: good.Profile, Surface: FixedS(math.Inf(1))}); err == nil {
 		t.Errorf("Transparent with S = Inf: no error")
 	}
-	// MaxNodes reached: the result comes with ErrNotConverged.
+	// MaxNodes reached: the result comes with an error matching pvrec.ErrNoConvergence.
 	r, err := Solver{Models: m, RelTol: 1e-12, MaxNodes: 40}.Solve(good)
-	if !errors.Is(err, ErrNotConverged) || !(r.J0 > 0) || !(r.ErrEst > 0) {
+	if !errors.Is(err, pvrec.ErrNoConvergence) || !(r.J0 > 0) || !(r.ErrEst > 0) {
 		t.Errorf("MaxNodes: J0 %g ± %g, err %v", r.J0, r.ErrEst, err)
 	}
 }
@@ -529,5 +530,57 @@ func TestDemoMeasuredProfile(t *testing.T) {
 		if e := math.Abs(got.J0 - ref.J0); e > got.ErrEst || got.ErrEst > 1e-3*got.J0 {
 			t.Errorf("error %g, estimate %g (relative)", e/ref.J0, got.ErrEst/ref.J0)
 		}
+	}
+}
+
+// TestSolveBounded checks the limits of the solver (issue 12): an InitialStep too small for
+// MaxNodes fails before any mesh is built (before, InitialStep 1e-9 asked for some 1e10 nodes
+// and 1e-300 for int(+Inf) of them), a MaxNodes that leaves room for two meshes only gives a
+// finite error estimate (it was +Inf), and nil models, a far boundary beyond
+// profile.MaxDepthCm and typed nil pointers are errors, not panics.
+func TestSolveBounded(t *testing.T) {
+	m := mustModels(t, SimpleModels)
+	good := Region{Profile: emitter(1e20, 0.3e-4, 1e16), Surface: FixedS(100)}
+	for _, step := range []float64{1e-9, 1e-300, math.SmallestNonzeroFloat64} {
+		r, err := Solver{Models: m, InitialStep: step}.Solve(good)
+		if !errors.Is(err, pvrec.ErrNoConvergence) || !strings.Contains(err.Error(), "InitialStep") || r.Nodes != nil {
+			t.Errorf("InitialStep %g: %d nodes, err %v", step, len(r.Nodes), err)
+		}
+		if _, err := (Solver{Models: m, InitialStep: step}).Transparent(good); err == nil {
+			t.Errorf("Transparent with InitialStep %g: no error", step)
+		}
+	}
+	// The initial mesh of this emitter has 9 nodes (observed): MaxNodes 10 leaves no room for
+	// the second mesh of 17, MaxNodes 20 for a third of 33.
+	if _, err := (Solver{Models: m, MaxNodes: 10}).Solve(good); !errors.Is(err, pvrec.ErrNoConvergence) || !strings.Contains(err.Error(), "second mesh") {
+		t.Errorf("MaxNodes 10: err %v", err)
+	}
+	r, err := Solver{Models: m, RelTol: 1e-12, MaxNodes: 20}.Solve(good)
+	if !errors.Is(err, pvrec.ErrNoConvergence) || r.Meshes != 2 || !(r.ErrEst > 0) || math.IsInf(r.ErrEst, 0) || !(r.J0 > 0) {
+		t.Errorf("MaxNodes 20: %d meshes, J0 %g ± %g, err %v", r.Meshes, r.J0, r.ErrEst, err)
+	}
+	var nilSurface *PowerLawS
+	var nilTab *profile.Tabulated
+	for name, reg := range map[string]Region{
+		"typed nil surface": {Profile: good.Profile, Surface: nilSurface},
+		"typed nil profile": {Profile: nilTab, Surface: FixedS(1)},
+		"deep":              {Profile: good.Profile, Surface: FixedS(1), Depth: 1e300},
+	} {
+		func() {
+			defer func() {
+				if p := recover(); p != nil {
+					t.Errorf("%s: panic %v", name, p)
+				}
+			}()
+			if _, err := NewSolver(m).Solve(reg); err == nil || !strings.HasPrefix(err.Error(), "j0: ") {
+				t.Errorf("%s: err %v", name, err)
+			}
+		}()
+	}
+	if _, err := (Solver{}).Solve(good); err == nil {
+		t.Errorf("zero Solver: no error")
+	}
+	if _, err := NewSolver(Models{Material: &silicon.Material{}}).Solve(good); err == nil {
+		t.Errorf("zero Material: no error")
 	}
 }

@@ -77,11 +77,13 @@ func Table(caption string, header []string, rows [][]string) error {
 
 // FooterHTML returns the provenance footer for results computed with the given model set
 // (anything with a String method, such as *silicon.Material): the pvrec version and the
-// model set's description, so that a figure pasted into a report says what produced it.
+// model set's description, so that a figure pasted into a report says what produced it. A nil
+// models says "model set not given"; a nil pointer or a String method that panics is described
+// as package fmt prints it ("<nil>", "%!v(PANIC=...)"), never a panic of the notebook.
 func FooterHTML(models fmt.Stringer) string {
 	desc := "model set not given"
 	if models != nil {
-		desc = models.String()
+		desc = fmt.Sprint(models)
 	}
 	return fmt.Sprintf(`<p style="font-size:0.8em;color:#555">pvrec %s · %s</p>`,
 		html.EscapeString(pvrec.Version), html.EscapeString(desc))

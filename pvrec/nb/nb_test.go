@@ -36,3 +36,22 @@ func TestFooterHTML(t *testing.T) {
 		t.Errorf("nil model set not reported")
 	}
 }
+
+// nilModels has a String method with a value receiver: calling it through a nil pointer
+// panics.
+type nilModels struct{ name string }
+
+func (m nilModels) String() string { return m.name }
+
+// TestFooterHTMLNilPointer: a nil pointer model set gives a footer, not a panic (it panicked
+// through models.String()).
+func TestFooterHTMLNilPointer(t *testing.T) {
+	var p *nilModels
+	f := FooterHTML(p)
+	if !strings.Contains(f, "pvrec ") || !strings.Contains(f, "nil") {
+		t.Errorf("footer %q", f)
+	}
+	if _, err := TableHTML("t", []string{"a"}, [][]string{{"1"}, nil}); err == nil {
+		t.Errorf("nil row accepted")
+	}
+}

@@ -4,9 +4,12 @@
 // PNG.
 //
 // The package holds no physics: callers compute curves with the pvrec packages and pass them
-// here as Series (or Bar values). Every builder validates its input and returns an error
-// (never panics), for example for a non-positive value on a logarithmic axis, which
-// gonum/plot would otherwise reject with a panic.
+// here as Series (or Bar values). Every builder validates its input and returns an error (never panics), for
+// example for a non-positive value on a logarithmic axis, which gonum/plot would otherwise
+// reject with a panic, or for values spanning more than a float64 holds, on which its tick
+// search would not end; axes whose values are all equal are padded. Rendering a plot that
+// gonum/plot cannot draw (a zero plot.Plot) is an error too, and figure sizes are bounded by
+// MaxSize, so that a notebook loses a figure, never its kernel.
 //
 // Write units in labels as "cm^-3": the Liberation fonts that gonum/plot uses lack the
 // superscript minus sign. SVG embeds the fonts for files that travel; SVGInline is the light form

@@ -54,6 +54,10 @@ const (
 	DefaultHeight = 10 * vg.Centimeter // default figure height
 )
 
+// MaxSize is the largest width or height Encode accepts: 1 m, a poster (our choice). A PNG of
+// 1 m × 1 m at gonum's 96 dpi holds 14 million pixels; larger sizes would only exhaust memory.
+const MaxSize = 100 * vg.Centimeter
+
 // palette is the house colour cycle (colour-blind-safe Okabe–Ito hues).
 var palette = []color.RGBA{
 	{0, 114, 178, 255},   // blue
@@ -67,7 +71,11 @@ var palette = []color.RGBA{
 
 // Lines returns a figure with one line (or marker set) per series in the house style. It
 // returns an error naming the series and point for mismatched lengths, empty series, NaN or
-// infinite values, or non-positive values on a logarithmic axis.
+// infinite values, or non-positive values on a logarithmic axis, and an error if the values on
+// a linear axis span more than a float64 can hold (max − min overflows). An axis whose values
+// are all equal v is drawn over [v − 1, v + 1] as gonum/plot does, or, where that range is
+// empty (|v| above 2^53) or not positive on a logarithmic axis, over ±10 % of v
+// (logarithmic: a decade either side).
 func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 	if len(series) == 0 {
 		return nil, fmt.Errorf("plots: no series to draw")
@@ -104,6 +112,12 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 		p.Legend.YOffs = vg.Points(4)
 	}
 	p.Legend.Padding = vg.Points(1)
+	if err := setRange(&p.X, "x", ax.LogX, series, func(s Series) []float64 { return s.X }); err != nil {
+		return nil, err
+	}
+	if err := setRange(&p.Y, "y", ax.LogY, series, func(s Series) []float64 { return s.Y }); err != nil {
+		return nil, err
+	}
 	for i, s := range series {
 		xy := make(plotter.XYs, len(s.X))
 		for k := range s.X {
@@ -141,6 +155,35 @@ func Lines(ax Axes, series ...Series) (*plot.Plot, error) {
 	return p, nil
 }
 
+// setRange sets the range of axis a (named name, logarithmic if log) to that of the values
+// of every series. When they are all equal it pads them by ±1 as gonum/plot would, unless that
+// fails: below the resolution of large values (gonum/plot's "illegal range" panic) or to 0 or
+// less on a log axis (a panic); then it pads by 10 % (a decade on a log axis). It returns an
+// error if max − min overflows on a linear axis (gonum/plot then hangs in its tick search).
+// The data added later leave the range as set, since it holds them.
+func setRange(a *plot.Axis, name string, log bool, series []Series, vals func(Series) []float64) error {
+	lo, hi := math.Inf(1), math.Inf(-1)
+	for _, s := range series {
+		for _, v := range vals(s) {
+			lo, hi = math.Min(lo, v), math.Max(hi, v)
+		}
+	}
+	switch {
+	case !log && math.IsInf(hi-lo, 0):
+		return fmt.Errorf("plots: %s values from %g to %g span more than a float64 holds; rescale them", name, lo, hi)
+	case lo < hi:
+	case lo-1 < hi+1 && (!log || lo-1 > 0):
+		lo, hi = lo-1, hi+1
+	case log:
+		lo, hi = math.Max(lo/10, math.SmallestNonzeroFloat64), math.Min(hi*10, math.MaxFloat64)
+	default:
+		d := 0.1 * math.Abs(lo)
+		lo, hi = math.Max(lo-d, -math.MaxFloat64), math.Min(hi+d, math.MaxFloat64)
+	}
+	a.Min, a.Max = lo, hi
+	return nil
+}
+
 func checkSeries(i int, s Series, ax Axes) error {
 	if len(s.X) == 0 {
 		return fmt.Errorf("plots: series %d (%q) is empty", i, s.Label)
@@ -164,13 +207,16 @@ func checkSeries(i int, s Series, ax Axes) error {
 }
 
 // Encode renders p in the given format ("svg", "pdf", "png", "eps", "jpg") at width w and
-// height h and returns the bytes.
-func Encode(p *plot.Plot, w, h vg.Length, format string) ([]byte, error) {
+// height h (each > 0 and at most MaxSize) and returns the bytes. A plot that gonum/plot cannot
+// draw (such as a zero plot.Plot, not made by plot.New or Lines) is an error, not a panic.
+func Encode(p *plot.Plot, w, h vg.Length, format string) (b []byte, err error) {
+	defer recoverDraw(&err)
 	if p == nil {
 		return nil, fmt.Errorf("plots: nil plot")
 	}
-	if !(w > 0 && h > 0) {
-		return nil, fmt.Errorf("plots: figure size must be positive, got %v × %v", w, h)
+	if !(w > 0 && h > 0 && w <= MaxSize && h <= MaxSize) {
+		return nil, fmt.Errorf("plots: figure size must be positive and at most %v cm per side, got %v × %v cm",
+			float64(MaxSize/vg.Centimeter), float64(w/vg.Centimeter), float64(h/vg.Centimeter))
 	}
 	wt, err := p.WriterTo(w, h, format)
 	if err != nil {
@@ -185,7 +231,8 @@ func Encode(p *plot.Plot, w, h vg.Length, format string) ([]byte, error) {
 
 // SVG renders p as a self-contained SVG document at the default size, with its fonts
 // embedded (about 0.5 MB), so that text is measured and drawn alike in every viewer: this is
-// the form for files that travel (Save uses it). Labels should use characters the Liberation
+// the form for files that travel (Save uses it). Like Encode it returns an error for a plot
+// gonum/plot cannot draw. Labels should use characters the Liberation
 // fonts have; write units as "cm^-3", not with superscript minus signs, which they lack.
 func SVG(p *plot.Plot) ([]byte, error) {
 	return renderSVG(p, true)
@@ -204,7 +251,15 @@ func SVGInline(p *plot.Plot) ([]byte, error) {
 		[]byte("font-family:'Liberation Serif','Times New Roman',Times,serif;")), nil
 }
 
-func renderSVG(p *plot.Plot, embed bool) ([]byte, error) {
+// recoverDraw turns a panic of gonum/plot while drawing into the error *err.
+func recoverDraw(err *error) {
+	if r := recover(); r != nil {
+		*err = fmt.Errorf("plots: gonum/plot cannot draw this plot (make it with Lines or plot.New): %v", r)
+	}
+}
+
+func renderSVG(p *plot.Plot, embed bool) (b []byte, err error) {
+	defer recoverDraw(&err)
 	if p == nil {
 		return nil, fmt.Errorf("plots: nil plot")
 	}
@@ -244,10 +299,13 @@ func Save(p *plot.Plot, path string) error {
 // Func evaluates f at every x and returns the curve as a Series with the given label. It is
 // the one loop a notebook would otherwise paste: f is typically a closure over a pvrec model.
 // It returns an error naming the label and x at the first failing evaluation, or for an
-// empty xs.
+// empty xs or a nil f.
 func Func(label string, xs []float64, f func(x float64) (float64, error)) (Series, error) {
 	if len(xs) == 0 {
 		return Series{}, fmt.Errorf("plots: curve %q has no x values", label)
+	}
+	if f == nil {
+		return Series{}, fmt.Errorf("plots: curve %q has a nil function", label)
 	}
 	s := Series{Label: label, X: append([]float64(nil), xs...), Y: make([]float64, len(xs))}
 	for i, x := range xs {

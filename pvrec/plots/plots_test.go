@@ -8,6 +8,9 @@ import (
 	"path/filepath"
 	"strings"
 	"testing"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
 )
 
 func TestLinesRejectsBadInput(t *testing.T) {
@@ -161,6 +164,70 @@ func TestBars(t *testing.T) {
 	} {
 		if _, err := Bars(tc.ax, tc.bars...); err == nil || !strings.Contains(err.Error(), tc.want) {
 			t.Errorf("%s: error %v, want %q", tc.name, err, tc.want)
+		}
+	}
+}
+
+// TestLinesHostile checks the inputs on which gonum/plot panics or hangs (issue 12): values
+// spanning more than a float64 (max − min overflows; the tick search never ended) are an
+// error, and axes whose values are all equal are drawn (a log axis at 1 panicked, a linear
+// axis at 1e300 panicked with "illegal range").
+func TestLinesHostile(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		ax   Axes
+		s    Series
+		ok   bool
+	}{
+		{"x span overflows", Axes{}, Series{X: []float64{-1e308, 1e308}, Y: []float64{1, 2}}, false},
+		{"y span overflows", Axes{}, Series{X: []float64{1, 2}, Y: []float64{-math.MaxFloat64, math.MaxFloat64}}, false},
+		{"one point, log", Axes{LogX: true, LogY: true}, Series{X: []float64{1}, Y: []float64{1}}, true},
+		{"constant, log", Axes{LogX: true, LogY: true}, Series{X: []float64{1, 1}, Y: []float64{1, 1}}, true},
+		{"constant 1e300", Axes{}, Series{X: []float64{1e300, 1e300}, Y: []float64{1, 2}}, true},
+		{"constant max", Axes{}, Series{X: []float64{1, 2}, Y: []float64{math.MaxFloat64, math.MaxFloat64}}, true},
+		{"constant 0", Axes{}, Series{X: []float64{0, 0}, Y: []float64{0, 0}}, true},
+		{"constant tiny, log", Axes{LogY: true}, Series{X: []float64{1, 2}, Y: []float64{5e-324, 5e-324}}, true},
+		{"wide but finite", Axes{}, Series{X: []float64{-8e307, 8e307}, Y: []float64{1, 2}}, true},
+	} {
+		func() {
+			defer func() {
+				if r := recover(); r != nil {
+					t.Errorf("%s: panic %v", c.name, r)
+				}
+			}()
+			p, err := Lines(c.ax, c.s)
+			if !c.ok {
+				if err == nil || !strings.Contains(err.Error(), "span more than a float64") {
+					t.Errorf("%s: err %v", c.name, err)
+				}
+				return
+			}
+			if err != nil {
+				t.Fatalf("%s: %v", c.name, err)
+			}
+			if b, err := SVGInline(p); err != nil || len(b) == 0 {
+				t.Errorf("%s: SVG %d bytes, %v", c.name, len(b), err)
+			}
+		}()
+	}
+	// A zero plot.Plot (not made by plot.New) makes gonum/plot panic: an error instead.
+	if _, err := SVGInline(&plot.Plot{}); err == nil {
+		t.Errorf("SVGInline of a zero plot.Plot: no error")
+	}
+	if _, err := Encode(&plot.Plot{}, DefaultWidth, DefaultHeight, "png"); err == nil {
+		t.Errorf("Encode of a zero plot.Plot: no error")
+	}
+	// Where gonum/plot's own padding by ±1 works, it is kept.
+	if p, err := Lines(Axes{LogY: true}, Series{X: []float64{1, 2}, Y: []float64{5, 5}}); err != nil || p.Y.Min != 4 || p.Y.Max != 6 {
+		t.Errorf("constant 5 on a log axis: range [%g, %g], %v; want [4, 6]", p.Y.Min, p.Y.Max, err)
+	}
+	if _, err := Func("nil", []float64{1}, nil); err == nil {
+		t.Errorf("Func with a nil function: no error")
+	}
+	p, _ := Lines(Axes{}, Series{X: []float64{1, 2}, Y: []float64{1, 2}})
+	for _, w := range []vg.Length{MaxSize + 1, vg.Length(math.Inf(1)), vg.Length(math.NaN()), 0} {
+		if _, err := Encode(p, w, DefaultHeight, "png"); err == nil {
+			t.Errorf("Encode at width %v: no error", w)
 		}
 	}
 }

@@ -81,3 +81,18 @@ func BenchmarkReadCSV(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkSheetOf: the sheet resistance of an erfc emitter on a boron wafer with the default
+// material (junction search and adaptive integral).
+func BenchmarkSheetOf(b *testing.B) {
+	mat := materialWith(b, silicon.NewKlaassen1992())
+	p := Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 0.3e-4}, Uniform{Dopant: silicon.Acceptor, N: 1.5e16}}
+	b.ReportAllocs()
+	for b.Loop() {
+		s, err := SheetOf(p, mat)
+		if err != nil {
+			b.Fatal(err)
+		}
+		benchSink += s.Rsh
+	}
+}

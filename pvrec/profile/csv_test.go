@@ -176,9 +176,9 @@ func checkSame(t *testing.T, a, b Measured) {
 }
 
 // FuzzReadCSV checks that the reader never panics, that whatever it accepts satisfies the
-// documented invariants (at least two rows, depths finite, >= 0 and increasing, densities
-// finite and > 0) and builds a Tabulated profile, and that writing and reading it back gives
-// the same data.
+// documented invariants (at least two rows, depths finite, >= 0, increasing and at most
+// MaxDepthCm, densities finite, > 0 and at most the silicon atom density) and builds a
+// Tabulated profile, and that writing and reading it back gives the same data.
 func FuzzReadCSV(f *testing.F) {
 	f.Add(goodCSV)
 	f.Add("depth (nm), density (cm^-3)\n0,1e20\n10,1e19\n20,1e21\n")
@@ -188,6 +188,9 @@ func FuzzReadCSV(f *testing.F) {
 	f.Add("depth (cm), density (cm-3)\n1e-300,1e-300\n1e300,1e300\n")
 	f.Add("depth (um), density (cm^-3)\n0,1\n0,1\n")
 	f.Add("depth (µm),density (cm^-3)\r\n0x1p-3, 1_0\r\n1,2\r\n")
+	f.Add("\ufeffDEPTH (UM), Density (CM^-3)\r0,1e20\r0.1,1e19\r")
+	f.Add("\"depth (nm)\",\"density (cm⁻³)\"\n\"0\",\"1e20\"\n\"5\",\"1e19\"\n")
+	f.Add("depth (um);density (cm^-3)\n0;1e20\n")
 	f.Fuzz(func(t *testing.T, in string) {
 		m, err := ReadCSV(strings.NewReader(in))
 		if err != nil {
@@ -201,10 +204,10 @@ func FuzzReadCSV(f *testing.F) {
 		}
 		for i := range m.Depth {
 			x, n := m.Depth[i], m.Density[i]
-			if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 || (i > 0 && !(x > m.Depth[i-1])) {
+			if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 || x > MaxDepthCm || (i > 0 && !(x > m.Depth[i-1])) {
 				t.Fatalf("accepted depth %g at row %d", x, i)
 			}
-			if math.IsNaN(n) || math.IsInf(n, 0) || n <= 0 {
+			if math.IsNaN(n) || math.IsInf(n, 0) || n <= 0 || n > silicon.AtomDensity {
 				t.Fatalf("accepted density %g at row %d", n, i)
 			}
 		}

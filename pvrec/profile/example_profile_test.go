@@ -10,7 +10,7 @@ import (
 
 // A phosphorus diffusion (erfc, surface density 1e20 cm^-3, characteristic length 0.3 µm) into
 // a 1.5e16 cm^-3 boron-doped wafer: junction depth, phosphorus dose and sheet resistance with
-// Klaassen's mobilities at 300 K.
+// the default model set's (Klaassen's) mobilities at 300 K.
 func ExampleJunctionDepth() {
 	emitter := profile.Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 0.3e-4}
 	p := profile.Sum{emitter, profile.Uniform{Dopant: silicon.Acceptor, N: 1.5e16}}
@@ -20,7 +20,12 @@ func ExampleJunctionDepth() {
 		return
 	}
 	dose, _ := emitter.Dose()
-	sheet, err := profile.SheetOf(p, silicon.NewKlaassen1992(), 300)
+	si, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	sheet, err := profile.SheetOf(p, si)
 	if err != nil {
 		fmt.Println(err)
 		return

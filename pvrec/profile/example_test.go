@@ -10,11 +10,16 @@ import (
 
 // The sheet resistance of a Gaussian phosphorus emitter (surface density 2e20 cm^-3,
 // characteristic depth 0.25 µm) diffused into a 1.5e16 cm^-3 boron-doped wafer, with
-// Klaassen's mobilities at 300 K.
+// the default model set's (Klaassen's) mobilities at 300 K.
 func ExampleSheetResistanceFunc() {
+	si, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
 	ns, l := 2e20, 0.25e-4 // cm^-3, cm
 	gauss := func(x float64) float64 { u := x / l; return ns * math.Exp(-u*u) }
-	s, err := profile.SheetResistanceFunc(silicon.NewKlaassen1992(), 300, silicon.Donor, gauss, 1e-4, 1.5e16)
+	s, err := profile.SheetResistanceFunc(si, silicon.Donor, gauss, 1e-4, 1.5e16)
 	if err != nil {
 		fmt.Println(err)
 		return
@@ -29,7 +34,12 @@ func ExampleSheetResistanceFunc() {
 func ExampleSheetResistance() {
 	depth := []float64{0, 0.05e-4, 0.1e-4, 0.2e-4, 0.3e-4, 0.4e-4, 0.5e-4, 0.6e-4, 0.7e-4, 0.8e-4}        // cm
 	nd := []float64{2e20, 1.92e20, 1.70e20, 1.05e20, 4.74e19, 1.55e19, 3.66e18, 6.30e17, 7.87e16, 7.1e15} // cm^-3
-	s, err := profile.SheetResistance(silicon.NewKlaassen1992(), 300, silicon.Donor, depth, nd, 1.5e16)
+	si, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	s, err := profile.SheetResistance(si, silicon.Donor, depth, nd, 1.5e16)
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -8,6 +8,7 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
@@ -109,7 +110,7 @@ func JunctionDepth(p Profile) (float64, error) {
 }
 
 // Dose returns the dose ∫ N dx in cm^-2 of dopant d of profile p between depths x0 and x1 in
-// cm (0 <= x0 <= x1, finite), for example the phosphorus dose of an emitter over the depth of
+// cm (0 <= x0 <= x1 <= MaxDepthCm), for example the phosphorus dose of an emitter over the depth of
 // a measurement, or the net dose of the layer above the junction (see NetDose).
 //
 // Method: 16-point Gauss–Legendre quadrature (gonum integrate/quad) on 256 equal panels of
@@ -117,12 +118,13 @@ func JunctionDepth(p Profile) (float64, error) {
 // profiles and the log-linear segments of tabulated ones the relative error is below 1e-12
 // unless a feature is narrower than (x1 − x0)/256.
 //
-// It returns an error for an invalid d, x0 or x1, or an error of p.
+// It returns an error for an invalid d, x0 or x1, an error of p, or an error if p gives a
+// density that is not finite and >= 0.
 func Dose(p Profile, d silicon.Dopant, x0, x1 float64) (float64, error) {
 	if d != silicon.Donor && d != silicon.Acceptor {
 		return 0, fmt.Errorf("profile: Dose: dopant d must be silicon.Donor or silicon.Acceptor, got %d", d)
 	}
-	return integrate(p, "Dose", x0, x1, func(nd, na float64) float64 {
+	return integrate(p, "profile: Dose", x0, x1, func(nd, na float64) float64 {
 		if d == silicon.Donor {
 			return nd
 		}
@@ -138,19 +140,23 @@ func NetDose(p Profile) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return integrate(p, "NetDose", 0, xj, func(nd, na float64) float64 { return math.Abs(nd - na) })
+	return integrate(p, "profile: NetDose", 0, xj, func(nd, na float64) float64 { return math.Abs(nd - na) })
 }
 
-// integrate returns ∫_x0^x1 f(nd(x), na(x)) dx (see Dose for the method).
-func integrate(p Profile, fn string, x0, x1 float64, f func(nd, na float64) float64) (float64, error) {
+// integrate returns ∫_x0^x1 f(nd(x), na(x)) dx (see Dose for the method); ctx names the
+// caller in errors ("profile: Dose").
+func integrate(p Profile, ctx string, x0, x1 float64, f func(nd, na float64) float64) (float64, error) {
 	if p == nil {
-		return 0, fmt.Errorf("profile: %s: profile p is nil", fn)
+		return 0, fmt.Errorf("%s: profile p is nil", ctx)
 	}
-	if math.IsNaN(x0) || math.IsInf(x0, 0) || x0 < 0 {
-		return 0, fmt.Errorf("profile: %s: depth x0 must be finite and >= 0 cm, got %g", fn, x0)
+	if err := check.NonNegative(ctx, "depth x0", x0, "cm"); err != nil {
+		return 0, err
 	}
 	if math.IsNaN(x1) || math.IsInf(x1, 0) || x1 < x0 {
-		return 0, fmt.Errorf("profile: %s: depth x1 must be finite and >= x0 = %g cm, got %g", fn, x0, x1)
+		return 0, fmt.Errorf("%s: depth x1 must be finite and >= x0 = %g cm, got %g", ctx, x0, x1)
+	}
+	if err := checkLength(ctx, "depth x1", x1, true); err != nil {
+		return 0, err
 	}
 	if x1 == x0 {
 		return 0, nil
@@ -169,8 +175,17 @@ func integrate(p Profile, fn string, x0, x1 float64, f func(nd, na float64) floa
 	var ferr error
 	g := func(x float64) float64 {
 		nd, na, err := p.Dopants(x)
-		if err != nil && ferr == nil {
-			ferr = err
+		if err == nil {
+			// A user Profile may return anything: hold it to the interface's contract.
+			if err = checkDensity(ctx, "donor density", nd); err == nil {
+				err = checkDensity(ctx, "acceptor density", na)
+			}
+		}
+		if err != nil {
+			if ferr == nil {
+				ferr = err
+			}
+			return 0
 		}
 		return f(nd, na)
 	}
@@ -184,60 +199,4 @@ func integrate(p Profile, fn string, x0, x1 float64, f func(nd, na float64) floa
 		}
 	}
 	return sum, nil
-}
-
-// SheetOf returns the sheet resistance of the surface layer of p, from the surface to its
-// junction, at temperature t in K with majority-carrier mobilities from mob, computed by
-// SheetResistanceFunc (see the package documentation). p must be a layer of one dopant type
-// on a uniform background of the other type (such as Sum{Erfc{...}, Uniform{...}} or a
-// Tabulated profile on a Uniform background): the density of the other type must be the
-// same at the surface and at p.Extent().
-//
-// It returns an error wrapping ErrNoJunction for a profile without junction (the sheet
-// resistance of a high–low junction's layer is not separable from the wafer's), an error if
-// the background is not uniform, or an error of p or of SheetResistanceFunc.
-func SheetOf(p Profile, mob silicon.Mobility, t float64) (Sheet, error) {
-	maj, err := Majority(p)
-	if err != nil {
-		return Sheet{}, err
-	}
-	xj, err := JunctionDepth(p)
-	if err != nil {
-		return Sheet{}, err
-	}
-	other := func(x float64) (float64, float64, error) {
-		nd, na, err := p.Dopants(x)
-		if maj == silicon.Donor {
-			return nd, na, err
-		}
-		return na, nd, err
-	}
-	_, bg0, err := other(0)
-	if err != nil {
-		return Sheet{}, err
-	}
-	ext := math.Max(p.Extent(), xj)
-	_, bg1, err := other(ext)
-	if err != nil {
-		return Sheet{}, err
-	}
-	if math.Abs(bg1-bg0) > 1e-12*math.Max(bg0, bg1) {
-		return Sheet{}, fmt.Errorf("profile: SheetOf: background of the other dopant type is not uniform (%g cm^-3 at the surface, %g cm^-3 at %g cm)", bg0, bg1, ext)
-	}
-	var ferr error
-	dens := func(x float64) float64 {
-		v, _, err := other(x)
-		if err != nil {
-			if ferr == nil {
-				ferr = err
-			}
-			return math.NaN()
-		}
-		return v
-	}
-	s, err := SheetResistanceFunc(mob, t, maj, dens, ext, bg0)
-	if ferr != nil {
-		return Sheet{}, ferr
-	}
-	return s, err
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -18,6 +19,45 @@ type Profile interface {
 	// beyond it the densities change by less than 1e-15 of their largest value. A uniform
 	// profile has extent 0. Searches (junction depth, dose) look no deeper.
 	Extent() float64
+}
+
+// MaxDepthCm is the largest depth and length in cm that the package accepts in profile
+// parameters (Erfc.Length, Gaussian.Length and Center), tabulated and CSV depths, the bounds
+// of Dose and the layers of SheetResistance: 10 cm, a hundred times the thickness of the
+// thickest wafers (our choice), so that extents, doses and sheet conductances stay finite and
+// meaningful. Dopants accepts any finite depth x >= 0.
+const MaxDepthCm = 10.0
+
+// checkDensity returns an error unless v is a finite density >= 0 cm^-3 and at most the
+// silicon atom density (a range error); ctx and name are constants.
+func checkDensity(ctx, name string, v float64) error {
+	if err := check.Density(ctx, name, v); err != nil {
+		return err
+	}
+	if v > silicon.AtomDensity {
+		return check.Rangef(ctx, name, v, 0, silicon.AtomDensity,
+			"%s: %s = %g cm^-3 above the silicon atom density %g cm^-3", ctx, name, v, silicon.AtomDensity)
+	}
+	return nil
+}
+
+// checkLength returns an error unless v is a finite length > 0 cm (>= 0 if zero is true) and
+// at most MaxDepthCm (a range error); ctx and name are constants.
+func checkLength(ctx, name string, v float64, zero bool) error {
+	var err error
+	if zero {
+		err = check.NonNegative(ctx, name, v, "cm")
+	} else {
+		err = check.Positive(ctx, name, v, "cm")
+	}
+	if err != nil {
+		return err
+	}
+	if v > MaxDepthCm {
+		return check.Rangef(ctx, name, v, 0, MaxDepthCm,
+			"%s: %s = %g cm beyond MaxDepthCm = %g cm", ctx, name, v, MaxDepthCm)
+	}
+	return nil
 }
 
 // Net returns the net doping nd − na in cm^-3 of p at depth x in cm: positive in n-type,
@@ -45,39 +85,21 @@ func split(model string, d silicon.Dopant, n float64) (nd, na float64, err error
 	return 0, 0, fmt.Errorf("profile: %s: Dopant must be silicon.Donor or silicon.Acceptor, got %d", model, d)
 }
 
-// checkDepth returns an error unless x is a finite depth >= 0 cm.
-func checkDepth(model string, x float64) error {
-	if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
-		return fmt.Errorf("profile: %s: depth x must be finite and >= 0 cm, got %g", model, x)
-	}
-	return nil
-}
-
-// checkParam returns an error unless v is finite and >= 0 (pos: > 0).
-func checkParam(model, name string, v float64, unit string, pos bool) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 || (pos && v == 0) {
-		cmp := ">= 0"
-		if pos {
-			cmp = "> 0"
-		}
-		return fmt.Errorf("profile: %s: %s must be finite and %s %s, got %g", model, name, cmp, unit, v)
-	}
-	return nil
-}
-
 // Uniform is a constant dopant density N of one type at every depth: a wafer's background
 // doping, or a uniformly doped region for hand calculations.
+//
+// The zero Uniform has no valid Dopant: its Dopants returns an error.
 type Uniform struct {
 	Dopant silicon.Dopant // silicon.Donor or silicon.Acceptor
-	N      float64        // dopant density, cm^-3, finite and >= 0
+	N      float64        // dopant density, cm^-3, finite, >= 0 and at most silicon.AtomDensity
 }
 
 // Dopants returns N as donor or acceptor density in cm^-3 at any valid depth x in cm.
 func (u Uniform) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Uniform", x); err != nil {
+	if err := check.NonNegative("profile: Uniform", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
-	if err := checkParam("Uniform", "density N", u.N, "cm^-3", false); err != nil {
+	if err := checkDensity("profile: Uniform", "density N", u.N); err != nil {
 		return 0, 0, err
 	}
 	return split("Uniform", u.Dopant, u.N)
@@ -97,24 +119,24 @@ func (u Uniform) String() string { return fmt.Sprintf("Uniform(%v %g cm^-3)", u.
 // with Length = 2 sqrt(D t) for a constant diffusivity D and diffusion time t (the textbook
 // solution of Fick's second law, e.g. S. M. Sze and K. K. Ng, Physics of Semiconductor
 // Devices, 3rd ed., Wiley 2007). Its dose is Surface · Length / sqrt(π) (see Dose). Add a
-// background with Sum.
+// background with Sum. The zero Erfc is invalid (zero Length): its methods return errors.
 type Erfc struct {
 	Dopant  silicon.Dopant // silicon.Donor or silicon.Acceptor
-	Surface float64        // surface density N(0), cm^-3, finite and >= 0
-	Length  float64        // characteristic length, cm, finite and > 0
+	Surface float64        // surface density N(0), cm^-3, finite, >= 0 and at most silicon.AtomDensity
+	Length  float64        // characteristic length, cm, finite, > 0 and at most MaxDepthCm
 }
 
 func (e Erfc) validate() error {
-	if err := checkParam("Erfc", "surface density Surface", e.Surface, "cm^-3", false); err != nil {
+	if err := checkDensity("profile: Erfc", "surface density Surface", e.Surface); err != nil {
 		return err
 	}
-	return checkParam("Erfc", "characteristic length Length", e.Length, "cm", true)
+	return checkLength("profile: Erfc", "characteristic length Length", e.Length, false)
 }
 
 // Dopants returns the density of the profile in cm^-3 at depth x in cm, as donor or acceptor
 // density, or an error for invalid x or parameters.
 func (e Erfc) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Erfc", x); err != nil {
+	if err := check.NonNegative("profile: Erfc", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	if err := e.validate(); err != nil {
@@ -152,28 +174,33 @@ func (e Erfc) String() string {
 //
 // with Length = 2 sqrt(D t) for a drive-in from a surface source (textbook solution of
 // Fick's second law, e.g. Sze and Ng 2007, see Erfc) and Length = sqrt(2) ΔRp for an implant
-// of straggle ΔRp. Only depths x >= 0 belong to the silicon; Dose integrates over them.
+// of straggle ΔRp. Only depths x >= 0 belong to the silicon; Dose integrates over them. The
+// zero Gaussian is invalid (zero Length): its methods return errors.
 type Gaussian struct {
 	Dopant silicon.Dopant // silicon.Donor or silicon.Acceptor
-	Peak   float64        // peak density, cm^-3, finite and >= 0
-	Center float64        // depth of the peak, cm, finite (negative: above the surface)
-	Length float64        // characteristic length, cm, finite and > 0
+	Peak   float64        // peak density, cm^-3, finite, >= 0 and at most silicon.AtomDensity
+	Center float64        // depth of the peak, cm, finite, |Center| <= MaxDepthCm (negative: above the surface)
+	Length float64        // characteristic length, cm, finite, > 0 and at most MaxDepthCm
 }
 
 func (g Gaussian) validate() error {
-	if err := checkParam("Gaussian", "peak density Peak", g.Peak, "cm^-3", false); err != nil {
+	if err := checkDensity("profile: Gaussian", "peak density Peak", g.Peak); err != nil {
 		return err
 	}
-	if math.IsNaN(g.Center) || math.IsInf(g.Center, 0) {
-		return fmt.Errorf("profile: Gaussian: peak depth Center must be finite, got %g cm", g.Center)
+	if err := check.Finite("profile: Gaussian", "peak depth Center", g.Center, "cm"); err != nil {
+		return err
 	}
-	return checkParam("Gaussian", "characteristic length Length", g.Length, "cm", true)
+	if math.Abs(g.Center) > MaxDepthCm {
+		return check.Rangef("profile: Gaussian", "peak depth Center", g.Center, -MaxDepthCm, MaxDepthCm,
+			"profile: Gaussian: peak depth Center = %g cm beyond ±MaxDepthCm = %g cm", g.Center, MaxDepthCm)
+	}
+	return checkLength("profile: Gaussian", "characteristic length Length", g.Length, false)
 }
 
 // Dopants returns the density of the profile in cm^-3 at depth x in cm, as donor or acceptor
 // density, or an error for invalid x or parameters.
 func (g Gaussian) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Gaussian", x); err != nil {
+	if err := check.NonNegative("profile: Gaussian", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	if err := g.validate(); err != nil {
@@ -207,13 +234,13 @@ func (g Gaussian) String() string {
 
 // Sum is the superposition of profiles: the donor and acceptor densities of its terms add.
 // A diffusion on a wafer is Sum{Erfc{...}, Uniform{...}}, with the background of either type.
-// An empty Sum is undoped silicon.
+// An empty (or nil) Sum is undoped silicon.
 type Sum []Profile
 
 // Dopants returns the summed donor and acceptor densities in cm^-3 at depth x in cm, or the
-// first error of a term.
+// first error of a term, or a range error if a sum exceeds the silicon atom density.
 func (s Sum) Dopants(x float64) (nd, na float64, err error) {
-	if err := checkDepth("Sum", x); err != nil {
+	if err := check.NonNegative("profile: Sum", "depth x", x, "cm"); err != nil {
 		return 0, 0, err
 	}
 	for i, p := range s {
@@ -226,6 +253,12 @@ func (s Sum) Dopants(x float64) (nd, na float64, err error) {
 		}
 		nd += d
 		na += a
+	}
+	if err := checkDensity("profile: Sum", "summed donor density", nd); err != nil {
+		return 0, 0, err
+	}
+	if err := checkDensity("profile: Sum", "summed acceptor density", na); err != nil {
+		return 0, 0, err
 	}
 	return nd, na, nil
 }
@@ -275,7 +308,8 @@ func searchPoints(p Profile) (xs []float64, known bool) {
 	case Gaussian:
 		return span(math.Max(0, v.Center-6.5*v.Length), v.Extent()), true
 	case *Tabulated:
-		return v.depth, true
+		// A copy: the callers append to and sort the result, which must not touch the data.
+		return append([]float64(nil), v.depth...), true
 	case Sum:
 		for _, t := range v {
 			if t == nil {
@@ -297,6 +331,9 @@ func searchPoints(p Profile) (xs []float64, known bool) {
 func knots(p Profile) []float64 {
 	switch v := p.(type) {
 	case *Tabulated:
+		if v.empty() {
+			return nil
+		}
 		return v.depth
 	case Sum:
 		var k []float64

@@ -140,14 +140,14 @@ func TestMajority(t *testing.T) {
 // TestSheetOf checks SheetOf against SheetResistanceFunc called directly on the same layer
 // (consistency of the adapter; the integral itself is tested with SheetResistance).
 func TestSheetOf(t *testing.T) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(t, silicon.NewKlaassen1992())
 	ns, l, nb := 2e20, 0.25e-4, 1.5e16
 	p := Sum{Gaussian{Dopant: silicon.Donor, Peak: ns, Length: l}, Uniform{Dopant: silicon.Acceptor, N: nb}}
-	got, err := SheetOf(p, mob, 300)
+	got, err := SheetOf(p, mat)
 	if err != nil {
 		t.Fatal(err)
 	}
-	want, err := SheetResistanceFunc(mob, 300, silicon.Donor, func(x float64) float64 { u := x / l; return ns * math.Exp(-u*u) }, p.Extent(), nb)
+	want, err := SheetResistanceFunc(mat, silicon.Donor, func(x float64) float64 { u := x / l; return ns * math.Exp(-u*u) }, p.Extent(), nb)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -157,16 +157,16 @@ func TestSheetOf(t *testing.T) {
 	// Deeper and heavier layers conduct better (monotonic, definition of Rsh).
 	prev := math.Inf(1)
 	for _, l := range []float64{0.1e-4, 0.2e-4, 0.4e-4} {
-		s, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: l}, Uniform{Dopant: silicon.Acceptor, N: nb}}, mob, 300)
+		s, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: l}, Uniform{Dopant: silicon.Acceptor, N: nb}}, mat)
 		if err != nil || !(s.Rsh < prev) {
 			t.Errorf("L = %g: Rsh = %g, err %v, not below %g", l, s.Rsh, err, prev)
 		}
 		prev = s.Rsh
 	}
-	if _, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 1e-5}, Uniform{Dopant: silicon.Donor, N: 1e15}}, mob, 300); !errors.Is(err, ErrNoJunction) {
+	if _, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 1e-5}, Uniform{Dopant: silicon.Donor, N: 1e15}}, mat); !errors.Is(err, ErrNoJunction) {
 		t.Errorf("SheetOf high–low: err %v, want ErrNoJunction", err)
 	}
-	if _, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 1e-5}, Erfc{Dopant: silicon.Acceptor, Surface: 1e18, Length: 1e-4}}, mob, 300); err == nil || !strings.Contains(err.Error(), "not uniform") {
+	if _, err := SheetOf(Sum{Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 1e-5}, Erfc{Dopant: silicon.Acceptor, Surface: 1e18, Length: 1e-4}}, mat); err == nil || !strings.Contains(err.Error(), "not uniform") {
 		t.Errorf("SheetOf with a graded background: err %v", err)
 	}
 }

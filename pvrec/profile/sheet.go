@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
 )
@@ -33,8 +34,8 @@ type Sheet struct {
 // SheetResistance returns the sheet resistance of a diffused layer of dopant type dop
 // (silicon.Donor for an n-type layer) whose dopant density in cm^-3 is given at depths in cm
 // by the arrays depthCm and density, on a uniform background of the other dopant type of
-// density background in cm^-3, at temperature t in K with mobilities from mob (see the
-// package documentation for the integral).
+// density background in cm^-3, in material m: at its temperature, with the mobilities of its
+// model set (Material.Mobilities; see the package documentation for the integral).
 //
 // Between samples the density is interpolated linearly in its logarithm (exact for
 // exponential tails; linearly where a sample is 0). The layer runs from depthCm[0] (normally
@@ -43,12 +44,13 @@ type Sheet struct {
 // adaptively to SheetRelTol; the error of the result is thus that of the data and their
 // sampling, not of the quadrature.
 //
-// It returns an error for a nil mob, an invalid dop or t, arrays of different lengths or
-// fewer than 2 samples, depths not finite, not increasing or negative, densities not finite
-// or negative, a background not finite or negative, a surface density not above the
-// background (no layer), or an error of mob.
-func SheetResistance(mob silicon.Mobility, t float64, dop silicon.Dopant, depthCm, density []float64, background float64) (Sheet, error) {
-	in, err := newIntegrand(mob, t, dop, background)
+// It returns an error for a nil m, an invalid dop, arrays of different lengths or
+// fewer than 2 samples, depths not finite, not increasing, negative or beyond MaxDepthCm,
+// densities or a background not finite, negative or above silicon.AtomDensity (range errors
+// for the bounds), a surface density not above the
+// background (no layer), or an error of the mobility model.
+func SheetResistance(m *silicon.Material, dop silicon.Dopant, depthCm, density []float64, background float64) (Sheet, error) {
+	in, err := newIntegrand(m, dop, background)
 	if err != nil {
 		return Sheet{}, err
 	}
@@ -62,11 +64,18 @@ func SheetResistance(mob silicon.Mobility, t float64, dop silicon.Dopant, depthC
 		if math.IsNaN(x) || math.IsInf(x, 0) || x < 0 {
 			return Sheet{}, fmt.Errorf("profile: depth must be finite and >= 0 cm (index %d: %g)", i, x)
 		}
+		if x > MaxDepthCm {
+			return Sheet{}, check.Rangef("SheetResistance", "depth", x, 0, MaxDepthCm,
+				"profile: depth %g cm beyond MaxDepthCm = %g cm (index %d)", x, MaxDepthCm, i)
+		}
 		if i > 0 && !(x > depthCm[i-1]) {
 			return Sheet{}, fmt.Errorf("profile: depth must increase (index %d: %g after %g)", i, x, depthCm[i-1])
 		}
 		if v := density[i]; math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
 			return Sheet{}, fmt.Errorf("profile: density must be finite and >= 0 cm^-3 (index %d: %g)", i, v)
+		} else if v > silicon.AtomDensity {
+			return Sheet{}, check.Rangef("SheetResistance", "density", v, 0, silicon.AtomDensity,
+				"profile: density %g cm^-3 above the silicon atom density %g cm^-3 (index %d)", v, silicon.AtomDensity, i)
 		}
 	}
 	if !(density[0] > background) {
@@ -131,8 +140,9 @@ func SheetResistance(mob silicon.Mobility, t float64, dop silicon.Dopant, depthC
 
 // SheetResistanceFunc returns the sheet resistance of a diffused layer of dopant type dop whose
 // dopant density in cm^-3 at depth x in cm is density(x), for 0 <= x <= depthCm, on a uniform
-// background of the other dopant type of density background in cm^-3, at temperature t in K
-// with mobilities from mob (see the package documentation for the integral).
+// background of the other dopant type of density background in cm^-3, in material m: at its
+// temperature, with the mobilities of its model set (see the package documentation for the
+// integral).
 //
 // The layer ends at the first junction, density(x) = background, found by a scan of 4096
 // equal steps refined by bisection to the resolution of float64, or at depthCm. The integral
@@ -140,26 +150,32 @@ func SheetResistance(mob silicon.Mobility, t float64, dop silicon.Dopant, depthC
 // must be smooth on that scale or the adaptive refinement has to find its features (a
 // feature narrower than xj/64 between Gauss nodes can be missed).
 //
-// It returns an error for a nil mob or density, an invalid dop or t, depthCm not finite and
-// > 0, a background not finite or negative, a density value not finite or negative (naming
-// the depth), a surface density not above the background, an integral that does not reach
-// the tolerance, or an error of mob.
-func SheetResistanceFunc(mob silicon.Mobility, t float64, dop silicon.Dopant, density func(xCm float64) float64, depthCm, background float64) (Sheet, error) {
-	in, err := newIntegrand(mob, t, dop, background)
+// It returns an error for a nil m or density, an invalid dop, depthCm not finite and > 0 or
+// beyond MaxDepthCm, a background not finite, negative or above silicon.AtomDensity, a
+// density value not finite, negative or above the atom density (naming the depth), a surface
+// density not above the background, an integral that does not reach the tolerance, or an
+// error of the mobility model.
+func SheetResistanceFunc(m *silicon.Material, dop silicon.Dopant, density func(xCm float64) float64, depthCm, background float64) (Sheet, error) {
+	in, err := newIntegrand(m, dop, background)
 	if err != nil {
 		return Sheet{}, err
 	}
 	if density == nil {
 		return Sheet{}, fmt.Errorf("profile: SheetResistanceFunc needs a non-nil density function")
 	}
-	if !(depthCm > 0) || math.IsInf(depthCm, 0) {
-		return Sheet{}, fmt.Errorf("profile: depth depthCm must be finite and > 0 cm, got %g", depthCm)
+	if err := checkLength("profile: SheetResistanceFunc", "depth depthCm", depthCm, false); err != nil {
+		return Sheet{}, err
 	}
 	var ferr error
 	dens := func(x float64) float64 {
 		v := density(x)
-		if (math.IsNaN(v) || math.IsInf(v, 0) || v < 0) && ferr == nil {
-			ferr = fmt.Errorf("profile: density(%g cm) = %g; must be finite and >= 0 cm^-3", x, v)
+		if ferr == nil {
+			if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+				ferr = fmt.Errorf("profile: density(%g cm) = %g; must be finite and >= 0 cm^-3", x, v)
+			} else if v > silicon.AtomDensity {
+				ferr = check.Rangef("SheetResistanceFunc", "density", v, 0, silicon.AtomDensity,
+					"profile: density(%g cm) = %g cm^-3 above the silicon atom density %g cm^-3", x, v, silicon.AtomDensity)
+			}
 		}
 		return v
 	}
@@ -220,6 +236,65 @@ func SheetResistanceFunc(mob silicon.Mobility, t float64, dop silicon.Dopant, de
 	return in.result(g, errSum, xj)
 }
 
+// SheetOf returns the sheet resistance of the surface layer of p, from the surface to its
+// junction, in material m (its temperature and its model set's mobilities), computed by
+// SheetResistanceFunc (see the package documentation). p must be a layer of one dopant type
+// on a uniform background of the other type (such as Sum{Erfc{...}, Uniform{...}} or a
+// Tabulated profile on a Uniform background): the density of the other type must be the
+// same at the surface and at p.Extent().
+//
+// It returns an error wrapping ErrNoJunction for a profile without junction (the sheet
+// resistance of a high–low junction's layer is not separable from the wafer's), an error if
+// the background is not uniform, or an error of p or of SheetResistanceFunc.
+func SheetOf(p Profile, m *silicon.Material) (Sheet, error) {
+	if m == nil {
+		return Sheet{}, fmt.Errorf("profile: SheetOf needs a non-nil *silicon.Material")
+	}
+	maj, err := Majority(p)
+	if err != nil {
+		return Sheet{}, err
+	}
+	xj, err := JunctionDepth(p)
+	if err != nil {
+		return Sheet{}, err
+	}
+	other := func(x float64) (float64, float64, error) {
+		nd, na, err := p.Dopants(x)
+		if maj == silicon.Donor {
+			return nd, na, err
+		}
+		return na, nd, err
+	}
+	_, bg0, err := other(0)
+	if err != nil {
+		return Sheet{}, err
+	}
+	ext := math.Max(p.Extent(), xj)
+	_, bg1, err := other(ext)
+	if err != nil {
+		return Sheet{}, err
+	}
+	if math.Abs(bg1-bg0) > 1e-12*math.Max(bg0, bg1) {
+		return Sheet{}, fmt.Errorf("profile: SheetOf: background of the other dopant type is not uniform (%g cm^-3 at the surface, %g cm^-3 at %g cm)", bg0, bg1, ext)
+	}
+	var ferr error
+	dens := func(x float64) float64 {
+		v, _, err := other(x)
+		if err != nil {
+			if ferr == nil {
+				ferr = err
+			}
+			return math.NaN()
+		}
+		return v
+	}
+	s, err := SheetResistanceFunc(m, maj, dens, ext, bg0)
+	if ferr != nil {
+		return Sheet{}, ferr
+	}
+	return s, err
+}
+
 // firstErr returns the first non-nil error.
 func firstErr(errs ...error) error {
 	for _, e := range errs {
@@ -233,8 +308,7 @@ func firstErr(errs ...error) error {
 // integrand evaluates the conductivity of the layer and integrates it; it records the first
 // error of the mobility model.
 type integrand struct {
-	mob   silicon.Mobility
-	t     float64
+	mat   *silicon.Material
 	dop   silicon.Dopant
 	bg    float64
 	err   error
@@ -245,20 +319,17 @@ type integrand struct {
 	w16   [16]float64
 }
 
-func newIntegrand(mob silicon.Mobility, t float64, dop silicon.Dopant, background float64) (*integrand, error) {
-	if mob == nil {
-		return nil, fmt.Errorf("profile: sheet resistance needs a non-nil silicon.Mobility")
+func newIntegrand(m *silicon.Material, dop silicon.Dopant, background float64) (*integrand, error) {
+	if m == nil {
+		return nil, fmt.Errorf("profile: sheet resistance needs a non-nil *silicon.Material")
 	}
 	if dop != silicon.Donor && dop != silicon.Acceptor {
 		return nil, fmt.Errorf("profile: dopant type dop = %v is not silicon.Donor or silicon.Acceptor", dop)
 	}
-	if math.IsNaN(t) || math.IsInf(t, 0) || t <= 0 {
-		return nil, fmt.Errorf("profile: temperature t must be finite and > 0 K, got %g", t)
+	if err := checkDensity("profile: sheet resistance", "background density", background); err != nil {
+		return nil, err
 	}
-	if math.IsNaN(background) || math.IsInf(background, 0) || background < 0 {
-		return nil, fmt.Errorf("profile: background density must be finite and >= 0 cm^-3, got %g", background)
-	}
-	in := &integrand{mob: mob, t: t, dop: dop, bg: background}
+	in := &integrand{mat: m, dop: dop, bg: background}
 	quad.Legendre{}.FixedLocations(in.x8[:], in.w8[:], -1, 1)
 	quad.Legendre{}.FixedLocations(in.x16[:], in.w16[:], -1, 1)
 	return in, nil
@@ -272,11 +343,13 @@ func (in *integrand) sigma(n float64) float64 {
 		return 0
 	}
 	in.evals++
-	pt := silicon.Point{T: in.t, Nd: n, Na: in.bg, N: net}
-	if in.dop == silicon.Acceptor {
-		pt = silicon.Point{T: in.t, Nd: in.bg, Na: n, P: net}
+	var mun, mup float64
+	var err error
+	if in.dop == silicon.Donor {
+		mun, mup, err = in.mat.Mobilities(net, 0, n, in.bg)
+	} else {
+		mun, mup, err = in.mat.Mobilities(0, net, in.bg, n)
 	}
-	mun, mup, err := in.mob.Mobilities(pt)
 	if err != nil {
 		in.err = fmt.Errorf("profile: mobility at density %g cm^-3: %w", n, err)
 		return 0
@@ -327,8 +400,8 @@ func (in *integrand) adapt(f func(float64) float64, a, b, i16, tol float64, dept
 
 // result packs the sheet conductance g (S) and its error estimate.
 func (in *integrand) result(g, errSum, xj float64) (Sheet, error) {
-	if !(g > 0) || math.IsInf(g, 0) {
-		return Sheet{}, fmt.Errorf("profile: sheet conductance %g S is not finite and > 0", g)
+	if !(g > 0) || math.IsInf(g, 0) || math.IsInf(1/g, 0) {
+		return Sheet{}, fmt.Errorf("profile: sheet conductance %g S is not finite and > 0 (or too small for a finite Rsh)", g)
 	}
 	return Sheet{Rsh: 1 / g, RelErr: errSum / g, XjCm: xj}, nil
 }

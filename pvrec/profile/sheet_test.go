@@ -6,42 +6,55 @@ import (
 	"strings"
 	"testing"
 
-	"github.com/pvrec/pvrec/pvrec/silicon"
 	"gonum.org/v1/gonum/integrate/quad"
+
+	"github.com/pvrec/pvrec/pvrec"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
 const q = silicon.ElementaryCharge
 
 func rel(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
 
+// materialWith returns the default model set at 300 K with mobility model mob.
+func materialWith(tb testing.TB, mob silicon.Mobility) *silicon.Material {
+	tb.Helper()
+	ms := silicon.DefaultModelSet()
+	ms.Mobility = mob
+	m, err := ms.At(300)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return m
+}
+
 // TestSheetUniform checks a uniform layer against the textbook closed form
 // Rsh = 1/(q μ N W) (for example Sze and Ng, Physics of Semiconductor Devices, 2007), to
 // 1e-12.
 func TestSheetUniform(t *testing.T) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(t, silicon.NewKlaassen1992())
 	for _, c := range []struct {
 		dop silicon.Dopant
 		n   float64
 	}{{silicon.Donor, 1e19}, {silicon.Acceptor, 3e18}, {silicon.Donor, 1e16}} {
 		w := 1e-4 // 1 µm
-		pt := silicon.Point{T: 300, Nd: c.n, N: c.n}
+		mun, mup, _ := mat.Mobilities(c.n, 0, c.n, 0)
 		if c.dop == silicon.Acceptor {
-			pt = silicon.Point{T: 300, Na: c.n, P: c.n}
+			mun, mup, _ = mat.Mobilities(0, c.n, 0, c.n)
 		}
-		mun, mup, _ := mob.Mobilities(pt)
 		mu := mun
 		if c.dop == silicon.Acceptor {
 			mu = mup
 		}
 		want := 1 / (q * mu * c.n * w)
-		s, err := SheetResistance(mob, 300, c.dop, []float64{0, w}, []float64{c.n, c.n}, 0)
+		s, err := SheetResistance(mat, c.dop, []float64{0, w}, []float64{c.n, c.n}, 0)
 		if err != nil {
 			t.Fatal(err)
 		}
 		if rel(s.Rsh, want) > 1e-12 || s.XjCm != w {
 			t.Errorf("%s %g: Rsh = %g, want %g Ω/sq (xj %g)", c.dop, c.n, s.Rsh, want, s.XjCm)
 		}
-		sf, err := SheetResistanceFunc(mob, 300, c.dop, func(float64) float64 { return c.n }, w, 0)
+		sf, err := SheetResistanceFunc(mat, c.dop, func(float64) float64 { return c.n }, w, 0)
 		if err != nil {
 			t.Fatal(err)
 		}
@@ -50,7 +63,7 @@ func TestSheetUniform(t *testing.T) {
 		}
 	}
 	// 1e19 cm^-3 phosphorus, 1 µm: about 54 Ω/sq with μn ≈ 115 cm²/Vs (common practice, no source).
-	s, _ := SheetResistance(mob, 300, silicon.Donor, []float64{0, 1e-4}, []float64{1e19, 1e19}, 0)
+	s, _ := SheetResistance(mat, silicon.Donor, []float64{0, 1e-4}, []float64{1e19, 1e19}, 0)
 	if s.Rsh < 50 || s.Rsh > 58 {
 		t.Errorf("1e19, 1 µm: %g Ω/sq", s.Rsh)
 	}
@@ -65,6 +78,7 @@ func TestSheetUniform(t *testing.T) {
 // tolerance 1e-10 for the quadrature and the junction.
 func TestSheetExponential(t *testing.T) {
 	mob := silicon.NewConstantMobility()
+	mat := materialWith(t, mob)
 	ns, l := 1e20, 0.1e-4
 	for _, bg := range []float64{0, 1e15, 1e18} {
 		for _, dop := range []silicon.Dopant{silicon.Donor, silicon.Acceptor} {
@@ -84,14 +98,14 @@ func TestSheetExponential(t *testing.T) {
 			for i, x := range xs {
 				ys[i] = ns * math.Exp(-x/l)
 			}
-			s, err := SheetResistance(mob, 300, dop, xs, ys, bg)
+			s, err := SheetResistance(mat, dop, xs, ys, bg)
 			if err != nil {
 				t.Fatal(err)
 			}
 			if rel(s.Rsh, 1/g) > 1e-10 || rel(s.XjCm, xj) > 1e-10 || s.RelErr > 1e-8 {
 				t.Errorf("arrays %s bg %g: Rsh = %.12g, want %.12g; xj = %g, want %g; RelErr %g", dop, bg, s.Rsh, 1/g, s.XjCm, xj, s.RelErr)
 			}
-			sf, err := SheetResistanceFunc(mob, 300, dop, func(x float64) float64 { return ns * math.Exp(-x/l) }, depth, bg)
+			sf, err := SheetResistanceFunc(mat, dop, func(x float64) float64 { return ns * math.Exp(-x/l) }, depth, bg)
 			if err != nil {
 				t.Fatal(err)
 			}
@@ -108,19 +122,19 @@ func TestSheetExponential(t *testing.T) {
 // smooth integrand). Tolerance 1e-8, SheetRelTol. A finely sampled array version agrees to
 // 1e-5, the error of log-linear interpolation of a Gaussian with 4001 samples.
 func TestSheetGaussian(t *testing.T) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(t, silicon.NewKlaassen1992())
 	ns, l, bg := 2e20, 0.25e-4, 1.5e16
 	n := func(x float64) float64 { u := x / l; return ns * math.Exp(-u*u) }
 	xj := l * math.Sqrt(math.Log(ns/bg))
 	ref := quad.Fixed(func(x float64) float64 {
 		v := n(x)
-		mun, _, err := mob.Mobilities(silicon.Point{T: 300, Nd: v, Na: bg, N: v - bg})
+		mun, _, err := mat.Mobilities(v-bg, 0, v, bg)
 		if err != nil {
 			t.Fatal(err)
 		}
 		return q * mun * (v - bg)
 	}, 0, xj, 2000, quad.Legendre{}, 0)
-	s, err := SheetResistanceFunc(mob, 300, silicon.Donor, n, 4*l, bg)
+	s, err := SheetResistanceFunc(mat, silicon.Donor, n, 4*l, bg)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -133,7 +147,7 @@ func TestSheetGaussian(t *testing.T) {
 		xs[i] = 4 * l * float64(i) / 4000
 		ys[i] = n(xs[i])
 	}
-	sa, err := SheetResistance(mob, 300, silicon.Donor, xs, ys, bg)
+	sa, err := SheetResistance(mat, silicon.Donor, xs, ys, bg)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -141,7 +155,7 @@ func TestSheetGaussian(t *testing.T) {
 		t.Errorf("arrays: Rsh = %.8g, reference %.8g Ω/sq; xj = %g, want %g", sa.Rsh, 1/ref, sa.XjCm, xj)
 	}
 	// Properties: a deeper or more doped profile conducts better.
-	deeper, _ := SheetResistanceFunc(mob, 300, silicon.Donor, func(x float64) float64 { return n(x / 1.5) }, 6*l, bg)
+	deeper, _ := SheetResistanceFunc(mat, silicon.Donor, func(x float64) float64 { return n(x / 1.5) }, 6*l, bg)
 	if !(deeper.Rsh < s.Rsh) {
 		t.Errorf("deeper profile: %g Ω/sq not below %g", deeper.Rsh, s.Rsh)
 	}
@@ -149,7 +163,7 @@ func TestSheetGaussian(t *testing.T) {
 
 // TestSheetBadInput checks the errors.
 func TestSheetBadInput(t *testing.T) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(t, silicon.NewKlaassen1992())
 	nan := math.NaN()
 	for _, c := range []struct {
 		xs, ys []float64
@@ -168,53 +182,53 @@ func TestSheetBadInput(t *testing.T) {
 		{[]float64{0, 1e-4}, []float64{1e19, 1e18}, math.Inf(1), "background"},
 		{[]float64{0, 1e-4}, []float64{5e21, 1e18}, 0, "mobility"}, // above Klaassen's NMax
 	} {
-		_, err := SheetResistance(mob, 300, silicon.Donor, c.xs, c.ys, c.bg)
+		_, err := SheetResistance(mat, silicon.Donor, c.xs, c.ys, c.bg)
 		if err == nil || !strings.HasPrefix(err.Error(), "profile: ") || !strings.Contains(err.Error(), c.word) {
 			t.Errorf("%v %v bg %g: error %v, want one with %q", c.xs, c.ys, c.bg, err, c.word)
 		}
 	}
 	good := func(x float64) float64 { return 1e19 * math.Exp(-x/1e-5) }
+	masetti := materialWith(t, silicon.NewMasetti1983())
 	for _, c := range []struct {
-		mob   silicon.Mobility
-		tk    float64
+		mat   *silicon.Material
 		dop   silicon.Dopant
 		f     func(float64) float64
 		depth float64
 		word  string
 	}{
-		{nil, 300, silicon.Donor, good, 1e-4, "Mobility"},
-		{mob, 300, 0, good, 1e-4, "dop"},
-		{mob, nan, silicon.Donor, good, 1e-4, "temperature"},
-		{mob, 300, silicon.Donor, nil, 1e-4, "density function"},
-		{mob, 300, silicon.Donor, good, 0, "depth"},
-		{mob, 300, silicon.Donor, good, math.Inf(1), "depth"},
-		{mob, 300, silicon.Donor, func(x float64) float64 { return nan }, 1e-4, "density("},
-		{mob, 300, silicon.Donor, func(x float64) float64 {
+		{nil, silicon.Donor, good, 1e-4, "Material"},
+		{mat, 0, good, 1e-4, "dop"},
+		{mat, silicon.Donor, nil, 1e-4, "density function"},
+		{mat, silicon.Donor, good, 0, "depth"},
+		{mat, silicon.Donor, good, math.Inf(1), "depth"},
+		{mat, silicon.Donor, func(x float64) float64 { return nan }, 1e-4, "density("},
+		{mat, silicon.Donor, func(x float64) float64 {
 			if x > 5e-5 {
 				return -1
 			}
 			return 1e19
 		}, 1e-4, "density("},
-		{silicon.NewMasetti1983(), 350, silicon.Donor, good, 1e-4, "outside validity range"},
+		{masetti, silicon.Donor, func(float64) float64 { return 5e21 }, 1e-4, "outside validity range"},
 	} {
-		_, err := SheetResistanceFunc(c.mob, c.tk, c.dop, c.f, c.depth, 0)
+		_, err := SheetResistanceFunc(c.mat, c.dop, c.f, c.depth, 0)
 		if err == nil || !strings.HasPrefix(err.Error(), "profile: ") || !strings.Contains(err.Error(), c.word) {
 			t.Errorf("%q: error %v", c.word, err)
 		}
 	}
-	_, err := SheetResistanceFunc(silicon.NewMasetti1983(), 350, silicon.Donor, good, 1e-4, 0)
-	if !errors.Is(err, silicon.ErrOutOfRange) {
-		t.Errorf("Masetti at 350 K: %v does not wrap silicon.ErrOutOfRange", err)
+	// Masetti's fit ends at 1e21 cm^-3 (its NMax): the mobility's range error comes through.
+	_, err := SheetResistanceFunc(masetti, silicon.Donor, func(float64) float64 { return 5e21 }, 1e-4, 0)
+	if !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("Masetti at 5e21 cm^-3: %v does not match pvrec.ErrOutOfRange", err)
 	}
 }
 
 // BenchmarkSheetResistanceFunc measures the Gaussian emitter of ExampleSheetResistanceFunc.
 func BenchmarkSheetResistanceFunc(b *testing.B) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(b, silicon.NewKlaassen1992())
 	ns, l := 2e20, 0.25e-4
 	gauss := func(x float64) float64 { u := x / l; return ns * math.Exp(-u*u) }
 	for b.Loop() {
-		if _, err := SheetResistanceFunc(mob, 300, silicon.Donor, gauss, 1e-4, 1.5e16); err != nil {
+		if _, err := SheetResistanceFunc(mat, silicon.Donor, gauss, 1e-4, 1.5e16); err != nil {
 			b.Fatal(err)
 		}
 	}
@@ -222,7 +236,7 @@ func BenchmarkSheetResistanceFunc(b *testing.B) {
 
 // BenchmarkSheetResistance200 measures a tabulated profile of 200 samples.
 func BenchmarkSheetResistance200(b *testing.B) {
-	mob := silicon.NewKlaassen1992()
+	mat := materialWith(b, silicon.NewKlaassen1992())
 	ns, l := 2e20, 0.25e-4
 	xs, ys := make([]float64, 200), make([]float64, 200)
 	for i := range xs {
@@ -231,7 +245,7 @@ func BenchmarkSheetResistance200(b *testing.B) {
 		ys[i] = ns * math.Exp(-u*u)
 	}
 	for b.Loop() {
-		if _, err := SheetResistance(mob, 300, silicon.Donor, xs, ys, 1.5e16); err != nil {
+		if _, err := SheetResistance(mat, silicon.Donor, xs, ys, 1.5e16); err != nil {
 			b.Fatal(err)
 		}
 	}

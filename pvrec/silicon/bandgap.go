@@ -3,6 +3,8 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Passler2002 is the dispersion-related ("Δ") model of the temperature dependence of the
@@ -42,7 +44,10 @@ func (Passler2002) String() string { return "Pässler2002" }
 // Eg returns the band gap in eV at temperature t in K. It returns an error for t <= 0, NaN,
 // infinite, or above TMax.
 func (m Passler2002) Eg(t float64) (float64, error) {
-	if err := checkTRange(m.String(), t, 0, m.TMax); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, err
+	}
+	if err := check.Window("silicon", m.String(), t, 0, m.TMax); err != nil {
 		return 0, err
 	}
 	d2 := m.Delta * m.Delta
@@ -60,8 +65,8 @@ func (m Passler2002) Eg(t float64) (float64, error) {
 	return eg, nil
 }
 
-// FixedGap is a temperature-independent band gap for hand calculations: Eg(T) = Eg for
-// every T > 0. NewFixedGap returns 1.1242 eV, the 300 K value of M. A. Green, J. Appl. Phys.
+// FixedGap is a temperature-independent band gap for hand calculations: Eg(T) = Value for
+// every 0 < T <= MeltingPoint. NewFixedGap returns 1.1242 eV, the 300 K value of M. A. Green, J. Appl. Phys.
 // 67, 2944 (1990); use it only at the temperature its value belongs to.
 type FixedGap struct {
 	Value float64 // band gap, eV
@@ -73,9 +78,13 @@ func NewFixedGap() FixedGap { return FixedGap{Value: 1.1242} }
 // String returns "FixedGap(1.1242 eV)" with the model's value.
 func (m FixedGap) String() string { return fmt.Sprintf("FixedGap(%g eV)", m.Value) }
 
-// Eg returns m.Value in eV for any finite t > 0 K, and an error for invalid t.
+// Eg returns m.Value in eV for 0 < t <= MeltingPoint, and an error for an invalid t, a t
+// above the melting point, or a Value not finite and > 0 (the zero FixedGap).
 func (m FixedGap) Eg(t float64) (float64, error) {
-	if err := checkTemperature(t); err != nil {
+	if err := checkSolid("FixedGap", t); err != nil {
+		return 0, err
+	}
+	if err := check.Positive("silicon: FixedGap", "band gap Value", m.Value, "eV"); err != nil {
 		return 0, err
 	}
 	return m.Value, nil

@@ -1,8 +1,9 @@
 package silicon
 
 import (
-	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // This file holds the band-gap narrowing (BGN) models that depend on the dopant densities
@@ -17,11 +18,6 @@ import (
 // for the majority band, so the two differ by a few meV at 1e19 cm^-3 and by some 30 meV at
 // 1e20 cm^-3.
 
-// bgnMaxDensity is the density in cm^-3 above which any doping or carrier density in silicon is
-// meaningless: the atom density of silicon, 5.0e22 cm^-3 (handbook value, 8 atoms per cubic
-// cell of 0.5431 nm). Every BGN model of this package refuses densities above it.
-const bgnMaxDensity = 5.0e22
-
 // defaultBGN returns the package's default band-gap narrowing model, Schenk1998 with its
 // published parameters.
 func defaultBGN() BandgapNarrowing { return NewSchenk1998() }
@@ -35,18 +31,20 @@ var (
 	_ BandgapNarrowing = Schenk1998{}
 )
 
-// bgnCheckDensities validates pt and refuses densities above the silicon atom density.
+// bgnCheckDensities validates pt and refuses densities above the silicon atom density
+// AtomDensity.
 func bgnCheckDensities(model string, pt Point) error {
 	if err := pt.Validate(); err != nil {
 		return err
 	}
-	for _, f := range [...]struct {
-		name string
-		v    float64
-	}{{"Nd + Na", pt.Nd + pt.Na}, {"N", pt.N}, {"P", pt.P}} {
-		if f.v > bgnMaxDensity {
-			return &RangeError{Model: model, Arg: f.name, Unit: "cm^-3", Value: f.v, Min: 0, Max: bgnMaxDensity}
-		}
+	if v := pt.Nd + pt.Na; v > AtomDensity {
+		return check.Range("silicon", model, "Nd + Na", "cm^-3", v, 0, AtomDensity)
+	}
+	if pt.N > AtomDensity {
+		return check.Range("silicon", model, "N", "cm^-3", pt.N, 0, AtomDensity)
+	}
+	if pt.P > AtomDensity {
+		return check.Range("silicon", model, "P", "cm^-3", pt.P, 0, AtomDensity)
 	}
 	return nil
 }
@@ -81,19 +79,20 @@ func slotboomForm(e1, n0, c, n float64) float64 {
 	return e1 * c / (s - x)
 }
 
-// slotboomDeltaEg is the shared body of the two Slotboom–de Graaff forms.
-func slotboomDeltaEg(model string, e1, n0, c float64, pt Point) (float64, error) {
+// slotboomDeltaEg is the shared body of the two Slotboom–de Graaff forms; ctx is
+// "silicon: " followed by the model's name (a constant, so that nothing is built per call).
+func slotboomDeltaEg(model, ctx string, e1, n0, c float64, pt Point) (float64, error) {
 	if err := bgnCheckDensities(model, pt); err != nil {
 		return 0, err
 	}
-	if math.IsNaN(e1) || math.IsInf(e1, 0) || e1 < 0 {
-		return 0, fmt.Errorf("silicon: %s: parameter E1 must be finite and >= 0 eV, got %g", model, e1)
+	if err := check.NonNegative(ctx, "parameter E1", e1, "eV"); err != nil {
+		return 0, err
 	}
-	if math.IsNaN(n0) || math.IsInf(n0, 0) || n0 <= 0 {
-		return 0, fmt.Errorf("silicon: %s: parameter N0 must be finite and > 0 cm^-3, got %g", model, n0)
+	if err := check.Positive(ctx, "parameter N0", n0, "cm^-3"); err != nil {
+		return 0, err
 	}
-	if math.IsNaN(c) || math.IsInf(c, 0) || c < 0 {
-		return 0, fmt.Errorf("silicon: %s: parameter C must be finite and >= 0, got %g", model, c)
+	if err := check.NonNegative(ctx, "parameter C", c, ""); err != nil {
+		return 0, err
 	}
 	return slotboomForm(e1, n0, c, pt.Nd+pt.Na), nil
 }
@@ -131,9 +130,9 @@ func (SlotboomDeGraaff1976) String() string { return "SlotboomDeGraaff1976" }
 
 // DeltaEg returns the apparent BGN in eV at N = pt.Nd + pt.Na. It returns an error for an
 // invalid pt (naming the field), for a density above 5e22 cm^-3 (errors.Is(err,
-// ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0, C < 0, or not finite).
+// pvrec.ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0, C < 0, or not finite).
 func (m SlotboomDeGraaff1976) DeltaEg(pt Point) (float64, error) {
-	return slotboomDeltaEg("SlotboomDeGraaff1976", m.E1, m.N0, m.C, pt)
+	return slotboomDeltaEg("SlotboomDeGraaff1976", "silicon: SlotboomDeGraaff1976", m.E1, m.N0, m.C, pt)
 }
 
 // KlaassenSlotboomDeGraaff1992 is the unified apparent band-gap narrowing of
@@ -168,9 +167,9 @@ func (KlaassenSlotboomDeGraaff1992) String() string { return "KlaassenSlotboomDe
 
 // DeltaEg returns the apparent BGN in eV at N = pt.Nd + pt.Na. It returns an error for an
 // invalid pt (naming the field), for a density above 5e22 cm^-3 (errors.Is(err,
-// ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0, C < 0, or not finite).
+// pvrec.ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0, C < 0, or not finite).
 func (m KlaassenSlotboomDeGraaff1992) DeltaEg(pt Point) (float64, error) {
-	return slotboomDeltaEg("KlaassenSlotboomDeGraaff1992", m.E1, m.N0, m.C, pt)
+	return slotboomDeltaEg("KlaassenSlotboomDeGraaff1992", "silicon: KlaassenSlotboomDeGraaff1992", m.E1, m.N0, m.C, pt)
 }
 
 // DelAlamoSwanson1987 is the apparent band-gap narrowing of heavily doped n-type silicon of
@@ -203,7 +202,7 @@ func (DelAlamoSwanson1987) String() string { return "DelAlamoSwanson1987" }
 
 // DeltaEg returns the apparent BGN in eV at N = pt.Nd + pt.Na. It returns an error for an
 // invalid pt (naming the field), for a density above 5e22 cm^-3 or a p-type point with
-// Na > Nd (both errors.Is(err, ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0,
+// Na > Nd (both errors.Is(err, pvrec.ErrOutOfRange)), or for invalid parameters (E1 < 0, N0 <= 0,
 // or not finite).
 func (m DelAlamoSwanson1987) DeltaEg(pt Point) (float64, error) {
 	const model = "DelAlamoSwanson1987"
@@ -211,14 +210,14 @@ func (m DelAlamoSwanson1987) DeltaEg(pt Point) (float64, error) {
 		return 0, err
 	}
 	if pt.Na > pt.Nd {
-		return 0, fmt.Errorf("silicon: %s: fit for n-type silicon, got p-type point with Na = %g > Nd = %g cm^-3: %w",
-			model, pt.Na, pt.Nd, ErrOutOfRange)
+		return 0, check.Rangef(model, "acceptor density Na", pt.Na, 0, pt.Nd,
+			"silicon: %s: fit for n-type silicon, got p-type point with Na = %g > Nd = %g cm^-3", model, pt.Na, pt.Nd)
 	}
-	if math.IsNaN(m.E1) || math.IsInf(m.E1, 0) || m.E1 < 0 {
-		return 0, fmt.Errorf("silicon: %s: parameter E1 must be finite and >= 0 eV, got %g", model, m.E1)
+	if err := check.NonNegative("silicon: "+model, "parameter E1", m.E1, "eV"); err != nil {
+		return 0, err
 	}
-	if math.IsNaN(m.N0) || math.IsInf(m.N0, 0) || m.N0 <= 0 {
-		return 0, fmt.Errorf("silicon: %s: parameter N0 must be finite and > 0 cm^-3, got %g", model, m.N0)
+	if err := check.Positive("silicon: "+model, "parameter N0", m.N0, "cm^-3"); err != nil {
+		return 0, err
 	}
 	n := pt.Nd + pt.Na
 	if n <= m.N0 {

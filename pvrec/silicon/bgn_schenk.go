@@ -3,6 +3,8 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Schenk1998 is the injection-dependent band-gap narrowing of A. Schenk, "Finite-temperature
@@ -37,7 +39,7 @@ import (
 // Domain. The fit is built on exact low-density and zero-temperature limits and is evaluated
 // for any 0 < T <= 1687 K (the melting point of silicon) and densities up to the silicon atom
 // density 5e22 cm^-3. It describes ionised dopants screened by free carriers, so it needs
-// enough of them; these points return an error (errors.Is(err, ErrOutOfRange)):
+// enough of them; these points return an error (errors.Is(err, pvrec.ErrOutOfRange)):
 //   - n + p = 0 with Nd + Na > 0 (the free-carrier densities were not supplied);
 //   - n + p < |Nd − Na|/2: plainly not quasi-neutral, a space-charge region, where the ionic
 //     term would grow like N_i/sqrt(n + p) and lose its meaning (quasi-neutral points have
@@ -97,10 +99,6 @@ func NewSchenk1998() Schenk1998 {
 // String returns "Schenk1998".
 func (Schenk1998) String() string { return "Schenk1998" }
 
-// schenkTMax is the melting point of silicon, 1687 K (1414 °C; handbook value), the upper end
-// of the temperatures at which Schenk1998 is evaluated.
-const schenkTMax = 1687
-
 // schenkMinScreening is the smallest ratio (n + p)/(Nd + Na) at which Schenk1998 is
 // evaluated (see its doc comment; this package's choice).
 const schenkMinScreening = 0.01
@@ -116,14 +114,21 @@ func (m Schenk1998) DeltaEg(pt Point) (float64, error) {
 // shift dEv of the valence-band edge in eV at pt (both >= 0 with the published parameters;
 // ΔEg = dEc + dEv). It returns an error for an invalid pt (naming the field), for T above
 // 1687 K, a density above 5e22 cm^-3 or a point without screening carriers (see Schenk1998;
-// all errors.Is(err, ErrOutOfRange)), or if the parameters give a non-finite result.
+// all errors.Is(err, pvrec.ErrOutOfRange)), for Rydberg or Bohr not finite and > 0, or if
+// the parameters give a non-finite result.
 func (m Schenk1998) BandEdgeShifts(pt Point) (dEc, dEv float64, err error) {
 	const model = "Schenk1998"
 	if err := bgnCheckDensities(model, pt); err != nil {
 		return 0, 0, err
 	}
-	if pt.T > schenkTMax {
-		return 0, 0, &RangeError{Model: model, Arg: "temperature T", Unit: "K", Value: pt.T, Min: 0, Max: schenkTMax}
+	if pt.T > MeltingPoint {
+		return 0, 0, check.Range("silicon", model, "temperature T", "K", pt.T, 0, MeltingPoint)
+	}
+	if err := check.Positive("silicon: "+model, "parameter Rydberg", m.Rydberg, "eV"); err != nil {
+		return 0, 0, err
+	}
+	if err := check.Positive("silicon: "+model, "parameter Bohr", m.Bohr, "cm"); err != nil {
+		return 0, 0, err
 	}
 	nSum := pt.N + pt.P
 	nIon := pt.Nd + pt.Na
@@ -131,16 +136,17 @@ func (m Schenk1998) BandEdgeShifts(pt Point) (dEc, dEv float64, err error) {
 		if nIon == 0 {
 			return 0, 0, nil // no carriers, no ions: nothing to narrow the gap
 		}
-		return 0, 0, fmt.Errorf("silicon: %s: needs the free-carrier densities, got N + P = 0 with Nd + Na = %g cm^-3: %w",
-			model, nIon, ErrOutOfRange)
+		return 0, 0, check.Rangef(model, "N + P", nSum, math.NaN(), math.NaN(),
+			"silicon: %s: needs the free-carrier densities, got N + P = 0 with Nd + Na = %g cm^-3", model, nIon)
 	}
 	if net := math.Abs(pt.Nd - pt.Na); nSum < 0.5*net {
-		return 0, 0, fmt.Errorf("silicon: %s: N + P = %g cm^-3 below |Nd − Na|/2 = %g cm^-3: not quasi-neutral (space-charge region): %w",
-			model, nSum, 0.5*net, ErrOutOfRange)
+		return 0, 0, check.Rangef(model, "N + P", nSum, 0.5*net, math.Inf(1),
+			"silicon: %s: N + P = %g cm^-3 below |Nd − Na|/2 = %g cm^-3: not quasi-neutral (space-charge region)", model, nSum, 0.5*net)
 	}
 	if nSum < schenkMinScreening*nIon {
-		return 0, 0, fmt.Errorf("silicon: %s: N + P = %g cm^-3 below (Nd + Na)/%g = %g cm^-3: too few carriers to screen the ions (strong compensation): %w",
-			model, nSum, 1/schenkMinScreening, schenkMinScreening*nIon, ErrOutOfRange)
+		return 0, 0, check.Rangef(model, "N + P", nSum, schenkMinScreening*nIon, math.Inf(1),
+			"silicon: %s: N + P = %g cm^-3 below (Nd + Na)/%g = %g cm^-3: too few carriers to screen the ions (strong compensation)",
+			model, nSum, 1/schenkMinScreening, schenkMinScreening*nIon)
 	}
 
 	// Reduced (excitonic) variables.

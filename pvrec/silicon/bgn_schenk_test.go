@@ -8,6 +8,8 @@ import (
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
 	"gonum.org/v1/gonum/unit/constant"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // TestSchenkParameters pins NewSchenk1998 to the parameter table of A. Schenk, J. Appl. Phys.
@@ -179,8 +181,8 @@ func TestSchenkDomain(t *testing.T) {
 	}
 	for _, tc := range refused {
 		d, err := m.DeltaEg(tc.pt)
-		if !errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") || !strings.Contains(err.Error(), tc.name) {
-			t.Errorf("DeltaEg(%+v) = %g, %v; want ErrOutOfRange naming %q", tc.pt, d, err, tc.name)
+		if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") || !strings.Contains(err.Error(), tc.name) {
+			t.Errorf("DeltaEg(%+v) = %g, %v; want pvrec.ErrOutOfRange naming %q", tc.pt, d, err, tc.name)
 		}
 	}
 	accepted := []Point{

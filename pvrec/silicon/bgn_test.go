@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // bgnAllModels returns every BGN model of the package with its published parameters.
@@ -88,8 +90,8 @@ func TestBGNAboveAtomDensity(t *testing.T) {
 			{T: 300, Nd: 3e22, Na: 3e22, N: 1e20},
 		} {
 			d, err := m.DeltaEg(pt)
-			if !errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") {
-				t.Errorf("%v.DeltaEg(%+v) = %g, %v; want an ErrOutOfRange error", m, pt, d, err)
+			if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon:") {
+				t.Errorf("%v.DeltaEg(%+v) = %g, %v; want an pvrec.ErrOutOfRange error", m, pt, d, err)
 			}
 		}
 	}
@@ -108,7 +110,9 @@ func TestBGNBadParameters(t *testing.T) {
 		{KlaassenSlotboomDeGraaff1992{E1: 6.92e-3, N0: 1.3e17, C: -1}, "C"},
 		{DelAlamoSwanson1987{E1: 18.7e-3, N0: -7e17}, "N0"},
 		{DelAlamoSwanson1987{E1: math.Inf(1), N0: 7e17}, "E1"},
-		{Schenk1998{}, "non-finite"}, // zero Rydberg and Bohr radius
+		{Schenk1998{}, "Rydberg"}, // the zero value: zero Rydberg and Bohr radius
+		{Schenk1998{Rydberg: 16.55e-3}, "Bohr"},
+		{func() Schenk1998 { m := NewSchenk1998(); m.Electron.G = 0; return m }(), "non-finite"},
 	}
 	for _, tc := range tests {
 		d, err := tc.m.DeltaEg(pt)
@@ -199,8 +203,8 @@ func TestSlotboomLimits(t *testing.T) {
 func TestDelAlamoPTypeRefused(t *testing.T) {
 	for _, pt := range []Point{bgnPType(1e19), {T: 300, Nd: 1e18, Na: 2e18, P: 1e18}} {
 		d, err := NewDelAlamoSwanson1987().DeltaEg(pt)
-		if !errors.Is(err, ErrOutOfRange) || !strings.Contains(err.Error(), "Na") {
-			t.Errorf("DelAlamoSwanson1987.DeltaEg(%+v) = %g, %v; want ErrOutOfRange naming Na", pt, d, err)
+		if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.Contains(err.Error(), "Na") {
+			t.Errorf("DelAlamoSwanson1987.DeltaEg(%+v) = %g, %v; want pvrec.ErrOutOfRange naming Na", pt, d, err)
 		}
 	}
 }

@@ -18,7 +18,15 @@
 //
 // Units are cm^-3, K, eV and V. Bad input (NaN, ±Inf, negative densities, T <= 0) returns an
 // error naming the argument; a temperature or density outside a model's validity range returns
-// an error for which errors.Is(err, ErrOutOfRange) holds (a *RangeError).
+// an error for which errors.Is(err, pvrec.ErrOutOfRange) holds (a *pvrec.RangeError, from
+// github.com/pvrec/pvrec/pvrec). Two physical bounds hold everywhere: no density above the
+// silicon atom density AtomDensity (5e22 cm^-3) and no temperature above the melting point
+// MeltingPoint (1687 K). Results that would not be finite are errors, never ±Inf or NaN.
+//
+// Zero values: only ModelSet.At makes a usable *Material; the methods of a zero or nil
+// Material return an error. Models are values; ModelSet.At refuses pointer models, so a fixed
+// Material cannot be changed by the caller afterwards. The zero values of the models carry no
+// parameters and return errors (their validity ranges are empty).
 //
 // # How the models combine
 //
@@ -113,7 +121,9 @@
 // Fermi–Dirac factor F_{1/2}/F_{−1/2} where degenerate), Diffusivities (following the model
 // set's statistics), AmbipolarDiffusivity (W. van Roosbroeck, Phys. Rev. 91, 282 (1953)), and
 // the sum mobility μn + μp versus excess carrier density (SumMobility, SumMobilities and the
-// interpolating SumMobilityTable) for photoconductance analysis.
+// interpolating SumMobilityTable) for photoconductance analysis. Where a *Material is at hand,
+// its methods Material.Diffusivities, Material.SumMobility and Material.SumMobilityTable take
+// the temperature, the mobility model and the wafer's equilibrium state from it.
 //
 // Resistivity: Conductivity, Resistivity, ResistivityFromDoping and the bracketed inversion
 // DopingFromResistivity; checked against the conversion standard ASTM F723 and the NBS

@@ -3,6 +3,8 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Green1990DOS is the effective densities of states of the conduction and valence bands of
@@ -39,7 +41,10 @@ func (Green1990DOS) String() string { return "Green1990" }
 // NcNv returns Nc and Nv in cm^-3 at temperature t in K, or an error for invalid t or t
 // outside [TMin, TMax].
 func (m Green1990DOS) NcNv(t float64) (nc, nv float64, err error) {
-	if err := checkTRange(m.String(), t, m.TMin, m.TMax); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, 0, err
+	}
+	if err := check.Window("silicon", m.String(), t, m.TMin, m.TMax); err != nil {
 		return 0, 0, err
 	}
 	r := t / 300

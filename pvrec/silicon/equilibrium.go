@@ -4,9 +4,12 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"strings"
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
 	"github.com/pvrec/pvrec/pvrec/internal/roots"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Equilibrium is the thermal-equilibrium state of doped silicon returned by
@@ -61,18 +64,27 @@ type carriers struct {
 // narrowed valence-band edge ΔEg/2 above it. EFMinusEc and EvMinusEF are relative to the
 // narrowed edges.
 //
-// It returns an error for invalid nd or na, an error from a model, or densities that are not
-// representable (for instance a minority density below 1e-308 cm^-3).
+// It returns an error for invalid nd or na, a range error (errors.Is(err,
+// pvrec.ErrOutOfRange)) for nd + na above AtomDensity, an error from a model, a narrowing that
+// closes the gap, or densities that are not representable (for instance a minority density
+// below 1e-308 cm^-3).
 func (m *Material) Equilibrium(nd, na float64) (Equilibrium, error) {
-	if err := checkDensity("nd", nd); err != nil {
+	if err := m.ready("Material.Equilibrium"); err != nil {
 		return Equilibrium{}, err
 	}
-	if err := checkDensity("na", na); err != nil {
+	if err := check.Density("silicon", "density nd", nd); err != nil {
 		return Equilibrium{}, err
+	}
+	if err := check.Density("silicon", "density na", na); err != nil {
+		return Equilibrium{}, err
+	}
+	if s := nd + na; s > AtomDensity {
+		return Equilibrium{}, check.Rangef("Material", "Nd + Na", s, 0, AtomDensity,
+			"silicon: Material.Equilibrium: Nd + Na = %g cm^-3 above the silicon atom density %g cm^-3", s, AtomDensity)
 	}
 	// Starting point: Boltzmann, complete ionisation, no narrowing.
 	start := m.boltzmannComplete(nd, na, 0)
-	d, err := m.DeltaEg(start.n, start.p, start.ndIon, start.naIon)
+	d, err := m.deltaEg(start.n, start.p, start.ndIon, start.naIon)
 	if err != nil {
 		return Equilibrium{}, err
 	}
@@ -86,8 +98,11 @@ func (m *Material) Equilibrium(nd, na float64) (Equilibrium, error) {
 		if err != nil {
 			return Equilibrium{}, err
 		}
-		d2, err := m.DeltaEg(c.n, c.p, c.ndIon, c.naIon)
+		d2, err := m.deltaEg(c.n, c.p, c.ndIon, c.naIon)
 		if err != nil {
+			if k > 0 { // the iteration itself left the model's range: say so, keep the cause
+				return Equilibrium{}, fmt.Errorf("silicon: BGN model %s: no self-consistent band-gap narrowing found (the iteration reached %w)", modelName(m.ms.BGN), err)
+			}
 			return Equilibrium{}, err
 		}
 		phi := d2 - d
@@ -102,7 +117,10 @@ func (m *Material) Equilibrium(nd, na float64) (Equilibrium, error) {
 	}
 	d, err = m.bgnFallback(nd, na, hist)
 	if err != nil {
-		return Equilibrium{}, err
+		if strings.HasPrefix(err.Error(), "silicon: BGN model") {
+			return Equilibrium{}, err
+		}
+		return Equilibrium{}, fmt.Errorf("silicon: BGN model %s: no self-consistent band-gap narrowing found (the search reached %w)", modelName(m.ms.BGN), err)
 	}
 	c, err := m.solveAt(nd, na, d)
 	if err != nil {
@@ -111,8 +129,12 @@ func (m *Material) Equilibrium(nd, na float64) (Equilibrium, error) {
 	return m.result(c, d)
 }
 
-// result packs a solution, checking that it is representable.
+// result packs a solution, checking that it is representable and that the narrowing leaves
+// a gap.
 func (m *Material) result(c carriers, d float64) (Equilibrium, error) {
+	if err := m.checkGap(d, c.n, c.p, c.ndIon, c.naIon); err != nil {
+		return Equilibrium{}, err
+	}
 	for _, v := range [...]float64{c.n, c.p} {
 		if !(v > 0) || math.IsInf(v, 0) {
 			return Equilibrium{}, fmt.Errorf("silicon: equilibrium carrier densities n0 = %g, p0 = %g cm^-3 not representable at T = %g K",
@@ -136,7 +158,7 @@ func (m *Material) bgnFallback(nd, na float64, hist [][2]float64) (float64, erro
 		if err != nil {
 			return 0, err
 		}
-		d, err := m.DeltaEg(c.n, c.p, c.ndIon, c.naIon)
+		d, err := m.deltaEg(c.n, c.p, c.ndIon, c.naIon)
 		return d - x, err
 	}
 	lo, hi := math.Inf(-1), math.Inf(1)

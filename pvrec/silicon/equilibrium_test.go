@@ -7,6 +7,8 @@ import (
 	"testing"
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // residual returns |n0 − p0 − Nd⁺ + Na⁻| relative to the sum of the magnitudes.
@@ -66,9 +68,9 @@ func TestEquilibriumProperties(t *testing.T) {
 			m := mustAt(t, ms, tk)
 			for _, c := range grid() {
 				e, err := m.Equilibrium(c[0], c[1])
-				if name == "default" && c[0] == c[1] && errors.Is(err, ErrOutOfRange) {
+				if name == "default" && c[0] == c[1] && errors.Is(err, pvrec.ErrOutOfRange) {
 					// Schenk1998 refuses strongly compensated points (too few carriers to
-					// screen the ions): an ErrOutOfRange from the BGN model is correct.
+					// screen the ions): an pvrec.ErrOutOfRange from the BGN model is correct.
 					continue
 				}
 				if err != nil {
@@ -271,8 +273,8 @@ func TestEquilibriumErrors(t *testing.T) {
 	}
 	// Errors of the BGN model are passed on: Schenk1998 refuses densities above the silicon
 	// atom density, 5e22 cm^-3.
-	if _, err := m.Equilibrium(1e23, 0); !errors.Is(err, ErrOutOfRange) {
-		t.Errorf("Equilibrium(1e23, 0): err = %v, want ErrOutOfRange", err)
+	if _, err := m.Equilibrium(1e23, 0); !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("Equilibrium(1e23, 0): err = %v, want pvrec.ErrOutOfRange", err)
 	}
 	mbad := mustAt(t, func() ModelSet { s := testSet(FermiDirac); s.BGN = failingBGN{}; return s }(), 300)
 	if _, err := mbad.Equilibrium(1e16, 0); err == nil {

@@ -40,7 +40,7 @@ func ExampleModelSet() {
 	fmt.Println(err)
 	// Output:
 	// Si 300.00 K: Eg Pässler2002, DOS Green1990, ni Altermatt2003, BGN KlaassenSlotboomDeGraaff1992, Boltzmann, complete ionisation, μ Klaassen1992
-	// silicon: Altermatt2003: temperature T = 310 K outside validity range [299.99, 300.01] K
+	// silicon: Altermatt2003: temperature T = 310 K outside the model's window [299.99, 300.01] K
 }
 
 func ExampleMaterial_Equilibrium() {

@@ -3,12 +3,17 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Validity and evaluation shared by the power-law-times-Arrhenius fits of ni:
 // ni = a (T/300 K)^e exp(−ta/T).
 func arrheniusNi(model string, t, a, e, ta, tmin, tmax float64) (float64, error) {
-	if err := checkTRange(model, t, tmin, tmax); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, err
+	}
+	if err := check.Window("silicon", model, t, tmin, tmax); err != nil {
 		return 0, err
 	}
 	return checkNi(model, t, a*math.Pow(t/300, e)*math.Exp(-ta/t))
@@ -104,7 +109,10 @@ func (Altermatt2003) String() string { return "Altermatt2003" }
 
 // Ni returns m.Value in cm^-3 for |t − m.T| <= 0.01 K, and an error otherwise.
 func (m Altermatt2003) Ni(t float64) (float64, error) {
-	if err := checkTRange(m.String(), t, m.T-altermattTolK, m.T+altermattTolK); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, err
+	}
+	if err := check.Window("silicon", m.String(), t, m.T-altermattTolK, m.T+altermattTolK); err != nil {
 		return 0, err
 	}
 	return checkNi(m.String(), t, m.Value)
@@ -142,7 +150,10 @@ func (Couderc2014) String() string { return "Couderc2014" }
 // Ni returns ni in cm^-3 at temperature t in K, or an error outside [TMin, TMax] or outside
 // the gap model's range.
 func (m Couderc2014) Ni(t float64) (float64, error) {
-	if err := checkTRange(m.String(), t, m.TMin, m.TMax); err != nil {
+	if err := check.Temperature("silicon", t); err != nil {
+		return 0, err
+	}
+	if err := check.Window("silicon", m.String(), t, m.TMin, m.TMax); err != nil {
 		return 0, err
 	}
 	eg, err := m.Gap.Eg(t)
@@ -153,7 +164,7 @@ func (m Couderc2014) Ni(t float64) (float64, error) {
 }
 
 // FixedNi is a temperature-independent intrinsic carrier density for hand calculations:
-// ni(T) = Value for every T > 0. NewFixedNi returns 1.00e10 cm^-3, the 300 K value of
+// ni(T) = Value for every 0 < T <= MeltingPoint. NewFixedNi returns 1.00e10 cm^-3, the 300 K value of
 // A. B. Sproul and M. A. Green, J. Appl. Phys. 70, 846 (1991) and the round number of hand
 // calculations; use it only at the temperature its value belongs to.
 type FixedNi struct {
@@ -166,10 +177,10 @@ func NewFixedNi() FixedNi { return FixedNi{Value: 1.00e10} }
 // String returns "FixedNi(1e+10 cm^-3)" with the model's value.
 func (m FixedNi) String() string { return fmt.Sprintf("FixedNi(%g cm^-3)", m.Value) }
 
-// Ni returns m.Value in cm^-3 for any finite t > 0 K, and an error for invalid t or a
-// non-finite or non-positive Value.
+// Ni returns m.Value in cm^-3 for 0 < t <= MeltingPoint, and an error for an invalid t, a
+// t above the melting point, or a non-finite or non-positive Value.
 func (m FixedNi) Ni(t float64) (float64, error) {
-	if err := checkTemperature(t); err != nil {
+	if err := checkSolid("FixedNi", t); err != nil {
 		return 0, err
 	}
 	return checkNi(m.String(), t, m.Value)

@@ -9,9 +9,14 @@ import (
 
 // Material is silicon described by a ModelSet at one temperature, with the
 // temperature-dependent quantities (Vt, Eg, Nc, Nv, ni) evaluated once by ModelSet.At.
-// It is immutable and safe for concurrent use, provided the models in its ModelSet are
-// values (as all models of this package are) and not pointers mutated elsewhere.
+// It is immutable and safe for concurrent use: ModelSet.At refuses pointer models, so the
+// caller cannot change a model after the material is fixed (a model value that holds slices
+// or maps, as none of this package's do, must not be modified after At).
 // Later packages take a *Material and call NiEff and Equilibrium in hot loops.
+//
+// Only ModelSet.At makes a usable Material. A zero Material (or a nil *Material) is not
+// one: its accessors (T, Vt, Eg, Nc, Nv, Ni, StatGap) return 0, Models returns the zero
+// ModelSet, String says so, and every method with an error result returns an error.
 type Material struct {
 	ms       ModelSet
 	t        float64 // temperature, K
@@ -21,6 +26,14 @@ type Material struct {
 	ni       float64 // intrinsic density from ms.Intrinsic, cm^-3
 	gap0     float64 // reduced statistical gap ln(Nc Nv / ni²), dimensionless
 	complete bool    // ms.Ionization is CompleteIonization
+}
+
+// ready returns an error unless m was made by ModelSet.At; method names the caller.
+func (m *Material) ready(method string) error {
+	if m != nil && m.vt > 0 {
+		return nil
+	}
+	return fmt.Errorf("silicon: %s: the Material is nil or a zero value; make one with ModelSet.At", method)
 }
 
 // T returns the temperature in K.
@@ -54,12 +67,42 @@ func (m *Material) Models() ModelSet { return m.ms }
 // DOS Green1990, ni Couderc2014, BGN Schenk1998, Fermi–Dirac, complete ionisation", to stamp
 // results.
 func (m *Material) String() string {
+	if m.ready("") != nil {
+		return "Si: zero Material (no model set; make one with ModelSet.At)"
+	}
 	return fmt.Sprintf("Si %.2f K: %s", m.t, m.ms)
 }
 
 // DeltaEg returns the band-gap narrowing in eV of the BGN model at n, p, nd, na (cm^-3, with
-// nd, na the ionised dopant densities) and the material's temperature.
+// nd, na the ionised dopant densities; finite, >= 0 and at most AtomDensity) and the
+// material's temperature. It returns an error for invalid densities (a range error above
+// AtomDensity), an error of the model, or a narrowing that is not finite or that closes the
+// statistical gap (ΔEg >= StatGap, which no silicon model can mean).
 func (m *Material) DeltaEg(n, p, nd, na float64) (float64, error) {
+	if err := m.ready("Material.DeltaEg"); err != nil {
+		return 0, err
+	}
+	if err := checkDensities(n, p, nd, na); err != nil {
+		return 0, err
+	}
+	d, err := m.deltaEg(n, p, nd, na)
+	if err != nil {
+		return 0, err
+	}
+	return d, m.checkGap(d, n, p, nd, na)
+}
+
+// checkGap returns an error if the narrowing d (eV) closes the statistical gap.
+func (m *Material) checkGap(d, n, p, nd, na float64) error {
+	if d < m.StatGap() {
+		return nil
+	}
+	return fmt.Errorf("silicon: BGN model %s gives ΔEg = %g eV at n = %g, p = %g, Nd = %g, Na = %g cm^-3, not below the gap Eg,stat = %g eV",
+		modelName(m.ms.BGN), d, n, p, nd, na, m.StatGap())
+}
+
+// deltaEg is DeltaEg without the validation of the densities and the gap, for the solvers.
+func (m *Material) deltaEg(n, p, nd, na float64) (float64, error) {
 	d, err := m.ms.BGN.DeltaEg(Point{T: m.t, Nd: nd, Na: na, N: n, P: p})
 	if err != nil {
 		return 0, err
@@ -72,8 +115,8 @@ func (m *Material) DeltaEg(n, p, nd, na float64) (float64, error) {
 }
 
 // NiEff returns the effective intrinsic carrier density ni,eff in cm^-3 at electron and hole
-// densities n and p and ionised donor and acceptor densities nd and na (all cm^-3, finite and
-// >= 0; under complete ionisation nd and na are the dopant densities):
+// densities n and p and ionised donor and acceptor densities nd and na (all cm^-3, finite,
+// >= 0 and at most AtomDensity; under complete ionisation nd and na are the dopant densities):
 //
 //	ni,eff² = ni² exp(ΔEg/kT) γn γp,
 //	γn = F_{1/2}(ηn)/exp(ηn) with n = Nc F_{1/2}(ηn),  γp likewise with p and Nv,
@@ -83,18 +126,20 @@ func (m *Material) DeltaEg(n, p, nd, na float64) (float64, error) {
 // n << Nc). In equilibrium n0 p0 = ni,eff²; out of equilibrium n p = ni,eff² exp((EFn − EFp)/kT),
 // the form in which recombination models use it. NiEff does not recompute any
 // temperature-dependent quantity; it costs one BGN evaluation and, under Fermi–Dirac statistics,
-// up to two inversions of F_{1/2}.
+// up to two inversions of F_{1/2}. It returns the errors of DeltaEg, or an error if ni,eff is
+// not representable.
 func (m *Material) NiEff(n, p, nd, na float64) (float64, error) {
-	for _, a := range [...]struct {
-		name string
-		v    float64
-	}{{"n", n}, {"p", p}, {"nd", nd}, {"na", na}} {
-		if err := checkDensity(a.name, a.v); err != nil {
-			return 0, err
-		}
+	if err := m.ready("Material.NiEff"); err != nil {
+		return 0, err
 	}
-	d, err := m.DeltaEg(n, p, nd, na)
+	if err := checkDensities(n, p, nd, na); err != nil {
+		return 0, err
+	}
+	d, err := m.deltaEg(n, p, nd, na)
 	if err != nil {
+		return 0, err
+	}
+	if err := m.checkGap(d, n, p, nd, na); err != nil {
 		return 0, err
 	}
 	x := d / (2 * m.vt)
@@ -151,7 +196,23 @@ func seriesSMinus1(u float64) float64 {
 
 // Mobilities returns the electron and hole mobilities μn, μp in cm²/(V·s) of the model set's
 // Mobility model at the material's temperature, for carrier densities n, p and ionised dopant
-// densities nd, na in cm^-3 (finite, >= 0). Errors are those of the model.
+// densities nd, na in cm^-3 (finite, >= 0, at most AtomDensity). It returns an error for
+// invalid densities, an error of the model, or an error if the model gives a mobility that is
+// not finite and > 0.
 func (m *Material) Mobilities(n, p, nd, na float64) (mun, mup float64, err error) {
-	return m.ms.Mobility.Mobilities(Point{T: m.t, Nd: nd, Na: na, N: n, P: p})
+	if err := m.ready("Material.Mobilities"); err != nil {
+		return 0, 0, err
+	}
+	if err := checkDensities(n, p, nd, na); err != nil {
+		return 0, 0, err
+	}
+	pt := Point{T: m.t, Nd: nd, Na: na, N: n, P: p}
+	mun, mup, err = m.ms.Mobility.Mobilities(pt)
+	if err != nil {
+		return 0, 0, err
+	}
+	if err := checkMobilityResult(modelName(m.ms.Mobility), pt, mun, mup); err != nil {
+		return 0, 0, err
+	}
+	return mun, mup, nil
 }

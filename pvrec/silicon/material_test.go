@@ -9,6 +9,8 @@ import (
 	"testing"
 
 	"github.com/pvrec/pvrec/pvrec/fermi"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // carrierBGN is a test fake: a carrier-dependent narrowing ΔEg = A + B·2kT·ln(sqrt(n p)/ni0),
@@ -92,7 +94,7 @@ func TestModelSetAtErrors(t *testing.T) {
 		ms     ModelSet
 		t      float64
 		want   string // prefix of the error message
-		range_ bool   // errors.Is(err, ErrOutOfRange)
+		range_ bool   // errors.Is(err, pvrec.ErrOutOfRange)
 	}{
 		{"T=0", def, 0, "silicon: temperature T", false},
 		{"T<0", def, -1, "silicon: temperature T", false},
@@ -111,7 +113,7 @@ func TestModelSetAtErrors(t *testing.T) {
 	}
 	for _, tc := range tests {
 		m, err := tc.ms.At(tc.t)
-		if err == nil || m != nil || !strings.HasPrefix(err.Error(), tc.want) || errors.Is(err, ErrOutOfRange) != tc.range_ {
+		if err == nil || m != nil || !strings.HasPrefix(err.Error(), tc.want) || errors.Is(err, pvrec.ErrOutOfRange) != tc.range_ {
 			t.Errorf("%s: At(%g) = %v, %v; want error %q (out of range %v)", tc.name, tc.t, m, err, tc.want, tc.range_)
 		}
 	}

@@ -3,6 +3,8 @@ package silicon
 import (
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Mobility is a model of the drift mobilities of electrons and holes in silicon.
@@ -12,7 +14,7 @@ import (
 // majority) and the free-carrier densities (which enter through electron–hole scattering and
 // screening in models that have them). A model that does not depend on a field of pt ignores
 // it, but every model validates pt (see Point.Validate) and returns an error outside its
-// validity range (errors.Is(err, ErrOutOfRange)).
+// validity range (errors.Is(err, pvrec.ErrOutOfRange)).
 type Mobility interface {
 	Mobilities(pt Point) (mun, mup float64, err error)
 }
@@ -55,16 +57,18 @@ func checkMobilityPoint(model string, pt Point, tmin, tmax, nmax float64) error 
 	if err := pt.Validate(); err != nil {
 		return err
 	}
-	if err := checkTRange(model, pt.T, tmin, tmax); err != nil {
+	if err := check.Window("silicon", model, pt.T, tmin, tmax); err != nil {
 		return err
 	}
-	for _, f := range [...]struct {
-		name string
-		v    float64
-	}{{"donor density Nd", pt.Nd}, {"acceptor density Na", pt.Na}, {"electron density N", pt.N}, {"hole density P", pt.P}} {
-		if !(f.v <= nmax) {
-			return &RangeError{Model: model, Arg: f.name, Unit: "cm^-3", Value: f.v, Min: 0, Max: nmax}
-		}
+	switch {
+	case !(pt.Nd <= nmax):
+		return check.Range("silicon", model, "donor density Nd", "cm^-3", pt.Nd, 0, nmax)
+	case !(pt.Na <= nmax):
+		return check.Range("silicon", model, "acceptor density Na", "cm^-3", pt.Na, 0, nmax)
+	case !(pt.N <= nmax):
+		return check.Range("silicon", model, "electron density N", "cm^-3", pt.N, 0, nmax)
+	case !(pt.P <= nmax):
+		return check.Range("silicon", model, "hole density P", "cm^-3", pt.P, 0, nmax)
 	}
 	return nil
 }

@@ -223,3 +223,67 @@ func TestSumMobilities(t *testing.T) {
 		t.Error("nil Mobility: no error")
 	}
 }
+
+// TestMaterialSumMobility checks that the Material forms of SumMobility, SumMobilityTable and
+// Diffusivities equal the package functions called with the material's mobility model at the
+// equilibrium state the caller would otherwise build by hand (consistency, common practice),
+// and that μn + μp falls with injection in Klaassen's model, whose electron–hole scattering
+// grows with the carrier densities (Klaassen, Solid-State Electron. 35, 953 (1992)).
+func TestMaterialSumMobility(t *testing.T) {
+	m, err := DefaultModelSet().At(300)
+	if err != nil {
+		t.Fatal(err)
+	}
+	const na = 1.5e16
+	eq, err := m.Equilibrium(0, na)
+	if err != nil {
+		t.Fatal(err)
+	}
+	pt := Point{T: 300, Nd: eq.NdIon, Na: eq.NaIon, N: eq.N0, P: eq.P0}
+	prev := math.Inf(1)
+	for _, dn := range []float64{0, 1e13, 1e15, 1e16, 1e17} {
+		got, err := m.SumMobility(0, na, dn)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want, err := SumMobility(NewKlaassen1992(), pt, dn)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if got != want {
+			t.Errorf("Δn = %g: Material.SumMobility = %g, SumMobility = %g", dn, got, want)
+		}
+		if dn >= 1e15 && !(got < prev) {
+			t.Errorf("Δn = %g: μn + μp = %g does not fall below %g", dn, got, prev)
+		}
+		prev = got
+	}
+	tab, err := m.SumMobilityTable(0, na, 1e12, 1e17, 1e-6)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, dn := range []float64{1e12, 3.3e13, 2e16, 1e17} {
+		got, err := tab.At(dn)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want, _ := m.SumMobility(0, na, dn)
+		if mobRel(got, want) > 1e-6 { // the table's tolerance
+			t.Errorf("table at Δn = %g: %g, want %g", dn, got, want)
+		}
+	}
+	dn1, dp1, err := m.Diffusivities(1e5, 1e16, 0, 1e16)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dn2, dp2, _ := Diffusivities(m, NewKlaassen1992(), 1e5, 1e16, 0, 1e16)
+	if dn1 != dn2 || dp1 != dp2 {
+		t.Errorf("Material.Diffusivities = %g, %g; Diffusivities = %g, %g", dn1, dp1, dn2, dp2)
+	}
+	if _, err := m.SumMobility(0, na, -1); err == nil {
+		t.Errorf("SumMobility(Δn = -1): no error")
+	}
+	if _, err := m.SumMobility(math.NaN(), na, 0); err == nil {
+		t.Errorf("SumMobility(nd = NaN): no error")
+	}
+}

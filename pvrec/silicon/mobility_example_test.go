@@ -82,3 +82,25 @@ func ExampleSumMobilityTable() {
 	// Δn = 1e+16 cm^-3: μn+μp = 1572.4 cm²/Vs
 	// Δn = 1e+17 cm^-3: μn+μp = 1127.4 cm²/Vs
 }
+
+// The same table from the material: its temperature, mobility model and the wafer's
+// equilibrium state come from the *Material, so nothing is typed twice.
+func ExampleMaterial_SumMobilityTable() {
+	si, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	tab, err := si.SumMobilityTable(0, 1e15, 1e12, 1e17, 1e-6) // p-type wafer, Na = 1e15 cm^-3
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	for _, dn := range []float64{1e13, 1e17} {
+		s, _ := tab.At(dn)
+		fmt.Printf("Δn = %.0e cm^-3: μn+μp = %.1f cm²/Vs\n", dn, s)
+	}
+	// Output:
+	// Δn = 1e+13 cm^-3: μn+μp = 1793.2 cm²/Vs
+	// Δn = 1e+17 cm^-3: μn+μp = 1127.4 cm²/Vs
+}

@@ -118,7 +118,7 @@ func (Klaassen1992) String() string { return "Klaassen1992" }
 
 // Mobilities returns the electron and hole mobilities in cm²/(V·s) at pt (see the type). It
 // returns an error for an invalid pt, for T or a density outside the validity range
-// (errors.Is(err, ErrOutOfRange)), or if edited parameters give a non-finite or non-positive
+// (errors.Is(err, pvrec.ErrOutOfRange)), or if edited parameters give a non-finite or non-positive
 // mobility.
 func (m Klaassen1992) Mobilities(pt Point) (mun, mup float64, err error) {
 	if err := checkMobilityPoint("Klaassen1992", pt, m.TMin, m.TMax, m.NMax); err != nil {

@@ -2,6 +2,8 @@ package silicon
 
 import (
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // Masetti1983 is the empirical dependence of the carrier mobilities on dopant density at
@@ -107,7 +109,7 @@ func (m Masetti1983) String() string {
 // Mobilities returns the electron and hole mobilities in cm²/(V·s) at total ionised dopant
 // density pt.Nd + pt.Na (see the type); pt.N and pt.P are validated but ignored. It returns
 // an error for an invalid pt, for T or Nd + Na outside the validity range (errors.Is(err,
-// ErrOutOfRange)), or if edited parameters give a non-finite or non-positive mobility.
+// pvrec.ErrOutOfRange)), or if edited parameters give a non-finite or non-positive mobility.
 func (m Masetti1983) Mobilities(pt Point) (mun, mup float64, err error) {
 	name := m.String()
 	if err := checkMobilityPoint(name, pt, m.TMin, m.TMax, math.Inf(1)); err != nil {
@@ -115,7 +117,7 @@ func (m Masetti1983) Mobilities(pt Point) (mun, mup float64, err error) {
 	}
 	n := pt.Nd + pt.Na
 	if !(n <= m.NMax) {
-		return 0, 0, &RangeError{Model: name, Arg: "total dopant density Nd+Na", Unit: "cm^-3", Value: n, Min: 0, Max: m.NMax}
+		return 0, 0, check.Range("silicon", name, "total dopant density Nd+Na", "cm^-3", n, 0, m.NMax)
 	}
 	mun, mup = m.Electron.Mu(n), m.Hole.Mu(n)
 	if err := checkMobilityResult(name, pt, mun, mup); err != nil {

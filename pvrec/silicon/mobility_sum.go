@@ -5,28 +5,87 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/interp"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 // SumMobility returns μn + μp in cm²/(V·s) of a wafer in equilibrium state eq (temperature,
 // ionised dopants and equilibrium carrier densities n0 = eq.N, p0 = eq.P) carrying the excess
 // carrier density dn in cm^-3 (Δn = Δp, quasi-neutral): the mobilities of mob at
 // Point{eq.T, eq.Nd, eq.Na, n0 + Δn, p0 + Δn}. This is the factor relating photoconductance to
-// Δn, Δσ = q Δn (μn + μp) W. It returns an error for an invalid eq or dn, or an error of mob.
+// Δn, Δσ = q Δn (μn + μp) W. It returns an error for an invalid eq (see Point.Validate), dn
+// not finite and >= 0, carrier densities above AtomDensity, an error of mob, or mobilities
+// not finite and > 0.
 func SumMobility(mob Mobility, eq Point, dn float64) (float64, error) {
 	if mob == nil {
 		return 0, fmt.Errorf("silicon: SumMobility needs a non-nil Mobility")
 	}
-	if err := checkDensity("excess carrier density dn", dn); err != nil {
+	if err := eq.Validate(); err != nil {
+		return 0, err
+	}
+	if err := check.Density("silicon: SumMobility", "excess carrier density dn", dn); err != nil {
 		return 0, err
 	}
 	pt := eq
 	pt.N += dn
 	pt.P += dn
+	if err := checkAtoms("density N + dn", pt.N); err != nil {
+		return 0, err
+	}
+	if err := checkAtoms("density P + dn", pt.P); err != nil {
+		return 0, err
+	}
 	mun, mup, err := mob.Mobilities(pt)
 	if err != nil {
 		return 0, err
 	}
+	if err := checkMobilityResult(modelName(mob), pt, mun, mup); err != nil {
+		return 0, err
+	}
 	return mun + mup, nil
+}
+
+// SumMobility returns μn + μp in cm²/(V·s) of the material's mobility model (its ModelSet's
+// Mobility) at its temperature, for silicon with donor and acceptor densities nd and na in
+// cm^-3 (finite, >= 0) in thermal equilibrium carrying the excess carrier density dn in cm^-3
+// (Δn = Δp, quasi-neutral, finite, >= 0): the package function SumMobility at the ionised
+// dopant and carrier densities of m.Equilibrium(nd, na). Each call solves the equilibrium
+// (about a microsecond); for many Δn of one wafer use m.SumMobilityTable. It returns an error
+// of Equilibrium, for an invalid dn, or an error of the mobility model.
+func (m *Material) SumMobility(nd, na, dn float64) (float64, error) {
+	if err := m.ready("Material.SumMobility"); err != nil {
+		return 0, err
+	}
+	eq, err := m.equilibriumPoint(nd, na)
+	if err != nil {
+		return 0, err
+	}
+	return SumMobility(m.ms.Mobility, eq, dn)
+}
+
+// SumMobilityTable returns the SumMobilityTable of m.SumMobility(nd, na, Δn) for
+// dnMin <= Δn <= dnMax (cm^-3) to relative tolerance relTol: NewSumMobilityTable with the
+// material's mobility model at the equilibrium state of m.Equilibrium(nd, na). It returns the
+// errors of Equilibrium and NewSumMobilityTable.
+func (m *Material) SumMobilityTable(nd, na, dnMin, dnMax, relTol float64) (*SumMobilityTable, error) {
+	if err := m.ready("Material.SumMobilityTable"); err != nil {
+		return nil, err
+	}
+	eq, err := m.equilibriumPoint(nd, na)
+	if err != nil {
+		return nil, err
+	}
+	return NewSumMobilityTable(m.ms.Mobility, eq, dnMin, dnMax, relTol)
+}
+
+// equilibriumPoint returns the Point of silicon with dopant densities nd, na (cm^-3) in
+// thermal equilibrium at the material's temperature: ionised dopants and n0, p0.
+func (m *Material) equilibriumPoint(nd, na float64) (Point, error) {
+	eq, err := m.Equilibrium(nd, na)
+	if err != nil {
+		return Point{}, err
+	}
+	return Point{T: m.t, Nd: eq.NdIon, Na: eq.NaIon, N: eq.N0, P: eq.P0}, nil
 }
 
 // SumMobilities evaluates SumMobility at each excess carrier density of dn (cm^-3) and returns
@@ -52,7 +111,8 @@ func SumMobilities(mob Mobility, eq Point, dn, dst []float64) ([]float64, error)
 // analyses that need μn + μp at thousands of excess carrier densities. NewSumMobilityTable
 // refines the grid until the interpolation error, checked against direct evaluation at every
 // interval midpoint, is below the requested tolerance. A table is immutable and safe for
-// concurrent use.
+// concurrent use. Only NewSumMobilityTable (or Material.SumMobilityTable) makes a usable
+// table: on a zero or nil table, At and Eval return an error.
 type SumMobilityTable struct {
 	model        string
 	eq           Point
@@ -141,23 +201,40 @@ func NewSumMobilityTable(mob Mobility, eq Point, dnMin, dnMax, relTol float64) (
 // String returns a description such as "μn+μp table, Klaassen1992, Δn 1e+12–1e+17 cm^-3,
 // 41 nodes, max rel. error 3.1e-07".
 func (t *SumMobilityTable) String() string {
+	if t == nil || t.nodes == 0 {
+		return "μn+μp table (zero value)"
+	}
 	return fmt.Sprintf("μn+μp table, %s, Δn %g–%g cm^-3, %d nodes, max rel. error %.2g",
 		t.model, t.dnMin, t.dnMax, t.nodes, t.relErr)
 }
 
 // Range returns the range of excess carrier densities [dnMin, dnMax] of the table, cm^-3.
-func (t *SumMobilityTable) Range() (dnMin, dnMax float64) { return t.dnMin, t.dnMax }
+// A zero or nil table has the range [0, 0].
+func (t *SumMobilityTable) Range() (dnMin, dnMax float64) {
+	if t == nil {
+		return 0, 0
+	}
+	return t.dnMin, t.dnMax
+}
 
 // RelErr returns the largest relative interpolation error found at the interval midpoints
-// when the table was built (dimensionless).
-func (t *SumMobilityTable) RelErr() float64 { return t.relErr }
+// when the table was built (dimensionless); 0 for a zero or nil table.
+func (t *SumMobilityTable) RelErr() float64 {
+	if t == nil {
+		return 0
+	}
+	return t.relErr
+}
 
 // At returns μn + μp in cm²/(V·s) at excess carrier density dn in cm^-3. It returns an error
-// (errors.Is(err, ErrOutOfRange)) for dn outside the table's Range, or NaN.
+// (errors.Is(err, pvrec.ErrOutOfRange)) for dn outside the table's Range, or NaN, and an
+// error for a zero or nil table.
 func (t *SumMobilityTable) At(dn float64) (float64, error) {
+	if t == nil || t.nodes == 0 {
+		return 0, fmt.Errorf("silicon: SumMobilityTable.At: the table is nil or a zero value; make one with NewSumMobilityTable")
+	}
 	if !(dn >= t.dnMin && dn <= t.dnMax) {
-		return 0, &RangeError{Model: "SumMobilityTable", Arg: "excess carrier density dn", Unit: "cm^-3",
-			Value: dn, Min: t.dnMin, Max: t.dnMax}
+		return 0, check.Range("silicon", "SumMobilityTable", "excess carrier density dn", "cm^-3", dn, t.dnMin, t.dnMax)
 	}
 	x := math.Log(dn)
 	// Rounding of the logarithm must not step outside the spline's knots.

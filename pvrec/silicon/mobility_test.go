@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 // mobRel returns |got − want|/|want|.
@@ -261,13 +263,13 @@ func TestMasettiArsenic(t *testing.T) {
 }
 
 // TestMobilityBadInput checks that every model rejects invalid points with an error naming
-// the argument, and out-of-range points with ErrOutOfRange.
+// the argument, and out-of-range points with pvrec.ErrOutOfRange.
 func TestMobilityBadInput(t *testing.T) {
 	nan, inf := math.NaN(), math.Inf(1)
 	for _, c := range []struct {
 		pt       Point
 		word     string // expected in the message
-		outRange bool   // errors.Is(err, ErrOutOfRange) expected (Klaassen and Masetti only)
+		outRange bool   // errors.Is(err, pvrec.ErrOutOfRange) expected (Klaassen and Masetti only)
 	}{
 		{Point{T: nan, Nd: 1e15, N: 1e15}, "temperature", false},
 		{Point{T: 0, Nd: 1e15, N: 1e15}, "temperature", false},
@@ -298,14 +300,14 @@ func TestMobilityBadInput(t *testing.T) {
 			if !strings.HasPrefix(err.Error(), "silicon: ") || !strings.Contains(err.Error(), c.word) {
 				t.Errorf("%s at %+v: error %q lacks prefix or %q", modelName(m), c.pt, err, c.word)
 			}
-			if c.outRange != errors.Is(err, ErrOutOfRange) {
-				t.Errorf("%s at %+v: errors.Is(ErrOutOfRange) = %v, want %v", modelName(m), c.pt, !c.outRange, c.outRange)
+			if c.outRange != errors.Is(err, pvrec.ErrOutOfRange) {
+				t.Errorf("%s at %+v: errors.Is(pvrec.ErrOutOfRange) = %v, want %v", modelName(m), c.pt, !c.outRange, c.outRange)
 			}
 		}
 	}
 	// Masetti is a 300 K model.
-	if _, _, err := NewMasetti1983().Mobilities(Point{T: 350, Nd: 1e15, N: 1e15}); !errors.Is(err, ErrOutOfRange) {
-		t.Errorf("Masetti at 350 K: %v, want ErrOutOfRange", err)
+	if _, _, err := NewMasetti1983().Mobilities(Point{T: 350, Nd: 1e15, N: 1e15}); !errors.Is(err, pvrec.ErrOutOfRange) {
+		t.Errorf("Masetti at 350 K: %v, want pvrec.ErrOutOfRange", err)
 	}
 	// Parameters edited into nonsense give an error, not NaN.
 	bad := NewKlaassen1992()

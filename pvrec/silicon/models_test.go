@@ -5,6 +5,8 @@ import (
 	"math"
 	"strings"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec"
 )
 
 func relErr(got, want float64) float64 { return math.Abs(got-want) / math.Abs(want) }
@@ -202,10 +204,11 @@ func TestModelErrors(t *testing.T) {
 		name  string
 		f     call
 		inRng []float64 // valid temperatures
-		out   []float64 // temperatures outside the validity range (ErrOutOfRange)
+		out   []float64 // temperatures outside the validity range (pvrec.ErrOutOfRange)
 	}{
 		{"Pässler2002", gap(NewPassler2002()), []float64{1e-3, 300, 500}, []float64{500.1}},
-		{"FixedGap", gap(NewFixedGap()), []float64{1e-3, 1e4}, nil},
+		// The fixed models hold for solid silicon, up to its melting point 1687 K (handbook value).
+		{"FixedGap", gap(NewFixedGap()), []float64{1e-3, 1687}, []float64{1687.1, 1e4}},
 		{"Green1990", dos(NewGreen1990DOS()), []float64{200, 500}, []float64{199.9, 500.1}},
 		// Misiakos & Tsamakis 1993: measured from 78 to 340 K (title of the paper).
 		{"MisiakosTsamakis1993", ni(NewMisiakosTsamakis1993()), []float64{78, 340}, []float64{77.9, 340.1}},
@@ -213,7 +216,7 @@ func TestModelErrors(t *testing.T) {
 		{"SproulGreen1991", ni(NewSproulGreen1991()), []float64{275, 375}, []float64{274.9, 375.1}},
 		{"Altermatt2003", ni(NewAltermatt2003()), []float64{300, 300.005}, []float64{299.9, 301}},
 		{"Couderc2014", ni(NewCouderc2014()), []float64{78, 500}, []float64{77.9, 500.1}},
-		{"FixedNi", ni(NewFixedNi()), []float64{1e-3, 1e4}, nil},
+		{"FixedNi", ni(NewFixedNi()), []float64{1e-3, 1687}, []float64{1687.1, 1e4}},
 	}
 	for _, tc := range tests {
 		for _, x := range tc.inRng {
@@ -223,13 +226,13 @@ func TestModelErrors(t *testing.T) {
 		}
 		for _, x := range tc.out {
 			err := tc.f(x)
-			if !errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: "+tc.name+": temperature T") {
-				t.Errorf("%s(%g): err = %v, want ErrOutOfRange naming the model and T", tc.name, x, err)
+			if !errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: "+tc.name+": temperature T") {
+				t.Errorf("%s(%g): err = %v, want pvrec.ErrOutOfRange naming the model and T", tc.name, x, err)
 			}
 		}
 		for _, x := range []float64{0, -300, math.NaN(), math.Inf(1), math.Inf(-1)} {
 			err := tc.f(x)
-			if err == nil || errors.Is(err, ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: temperature T") {
+			if err == nil || errors.Is(err, pvrec.ErrOutOfRange) || !strings.HasPrefix(err.Error(), "silicon: temperature T") {
 				t.Errorf("%s(%g): err = %v, want an invalid-T error", tc.name, x, err)
 			}
 		}

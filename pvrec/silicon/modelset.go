@@ -3,12 +3,14 @@ package silicon
 import (
 	"fmt"
 	"math"
+	"reflect"
 	"strings"
 )
 
 // ModelSet is the user-editable choice of material models: a plain value that can be copied
 // and changed field by field ("what if the gap were Green's?") before it is fixed at a
-// temperature by At. Every field must be set; DefaultModelSet fills them all.
+// temperature by At. Every field must be set; DefaultModelSet fills them all. The models must
+// be values, not pointers (At refuses pointers), so that a Material cannot change after At.
 //
 // How the models combine: the intrinsic density ni is taken from Intrinsic alone, and the band
 // gap from Gap alone; Nc and Nv enter only through the Fermi–Dirac degeneracy of the carriers.
@@ -61,8 +63,16 @@ func modelName(m any) string {
 	return strings.TrimPrefix(fmt.Sprintf("%T", m), "silicon.")
 }
 
-// validate returns an error naming the first unset field.
+// validate returns an error naming the first unset field or pointer model.
 func (ms ModelSet) validate() error {
+	for _, f := range [...]struct {
+		name  string
+		model any
+	}{{"Gap", ms.Gap}, {"DOS", ms.DOS}, {"Intrinsic", ms.Intrinsic}, {"BGN", ms.BGN}, {"Ionization", ms.Ionization}, {"Mobility", ms.Mobility}} {
+		if f.model != nil && reflect.ValueOf(f.model).Kind() == reflect.Pointer {
+			return fmt.Errorf("silicon: ModelSet.%s is a pointer (%T); pass the model by value, so that the Material cannot change after At", f.name, f.model)
+		}
+	}
 	switch {
 	case ms.Gap == nil:
 		return fmt.Errorf("silicon: ModelSet.Gap is nil")
@@ -83,14 +93,15 @@ func (ms ModelSet) validate() error {
 }
 
 // At evaluates the temperature-dependent models at temperature t in K and returns the
-// immutable Material that caches them. It returns an error if a field of ms is unset, if t is
-// NaN, infinite or <= 0, if t is outside a model's validity range (errors.Is(err,
-// ErrOutOfRange)), or if a model returns a non-finite or non-positive value.
+// immutable Material that caches them. It returns an error if a field of ms is unset or a
+// pointer, if t is NaN, infinite or <= 0, if t is above MeltingPoint or outside a model's
+// validity range (errors.Is(err, pvrec.ErrOutOfRange)), or if a model returns a non-finite
+// or non-positive value.
 func (ms ModelSet) At(t float64) (*Material, error) {
 	if err := ms.validate(); err != nil {
 		return nil, err
 	}
-	if err := checkTemperature(t); err != nil {
+	if err := checkSolid("ModelSet.At", t); err != nil {
 		return nil, err
 	}
 	eg, err := ms.Gap.Eg(t)

@@ -1,9 +1,6 @@
 package silicon
 
-import (
-	"fmt"
-	"math"
-)
+import "github.com/pvrec/pvrec/pvrec/internal/check"
 
 // Point is the local state of silicon at which a density-dependent model is evaluated:
 // temperature, ionised dopant densities and free-carrier densities.
@@ -21,32 +18,45 @@ type Point struct {
 // Validate returns an error naming the first field of pt that is NaN, infinite or out of
 // range (T <= 0 or a negative density).
 func (pt Point) Validate() error {
-	if err := checkTemperature(pt.T); err != nil {
+	if err := check.Temperature("silicon", pt.T); err != nil {
 		return err
 	}
-	for _, f := range []struct {
-		name string
-		v    float64
-	}{{"Nd", pt.Nd}, {"Na", pt.Na}, {"N", pt.N}, {"P", pt.P}} {
-		if err := checkDensity(f.name, f.v); err != nil {
-			return err
-		}
+	if err := check.Density("silicon", "density Nd", pt.Nd); err != nil {
+		return err
 	}
-	return nil
+	if err := check.Density("silicon", "density Na", pt.Na); err != nil {
+		return err
+	}
+	if err := check.Density("silicon", "density N", pt.N); err != nil {
+		return err
+	}
+	return check.Density("silicon", "density P", pt.P)
 }
 
-// checkTemperature returns an error unless t is a finite, positive temperature in K.
-func checkTemperature(t float64) error {
-	if math.IsNaN(t) || math.IsInf(t, 0) || t <= 0 {
-		return fmt.Errorf("silicon: temperature T must be finite and > 0 K, got %g", t)
+// checkDensities validates the carrier and ionised dopant densities n, p, nd, na (cm^-3) of
+// Material's methods, naming the first invalid one: each finite, >= 0 and at most AtomDensity.
+func checkDensities(n, p, nd, na float64) error {
+	if err := checkAtoms("density n", n); err != nil {
+		return err
 	}
-	return nil
+	if err := checkAtoms("density p", p); err != nil {
+		return err
+	}
+	if err := checkAtoms("density nd", nd); err != nil {
+		return err
+	}
+	return checkAtoms("density na", na)
 }
 
-// checkDensity returns an error unless v is a finite, non-negative density in cm^-3.
-func checkDensity(name string, v float64) error {
-	if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
-		return fmt.Errorf("silicon: density %s must be finite and >= 0 cm^-3, got %g", name, v)
+// checkAtoms returns an error unless v is a finite density >= 0 cm^-3, and a range error
+// if it exceeds the silicon atom density; name is a constant such as "density n".
+func checkAtoms(name string, v float64) error {
+	if err := check.Density("silicon", name, v); err != nil {
+		return err
+	}
+	if v > AtomDensity {
+		return check.Rangef("silicon", name, v, 0, AtomDensity,
+			"silicon: %s = %g cm^-3 above the silicon atom density %g cm^-3", name, v, AtomDensity)
 	}
 	return nil
 }

@@ -4,55 +4,53 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
-
-// Dopant selects a type of dopant: Donor (n-type) or Acceptor (p-type). The zero value is
-// invalid.
-type Dopant uint8
-
-const (
-	// Donor is a donor (phosphorus, arsenic): it makes silicon n-type.
-	Donor Dopant = iota + 1
-	// Acceptor is an acceptor (boron): it makes silicon p-type.
-	Acceptor
-)
-
-// String returns "donor" or "acceptor".
-func (d Dopant) String() string {
-	switch d {
-	case Donor:
-		return "donor"
-	case Acceptor:
-		return "acceptor"
-	}
-	return fmt.Sprintf("Dopant(%d)", uint8(d))
-}
 
 // Conductivity returns the conductivity σ = q (n μn + p μp) in S/cm at pt, with the
 // mobilities of mob (cm²/(V·s)) and the carrier densities pt.N, pt.P (cm^-3). It returns an
-// error from mob (which validates pt).
+// error for an invalid pt (see Point.Validate) or carrier densities above AtomDensity, an
+// error from mob, or mobilities not finite and > 0.
 func Conductivity(mob Mobility, pt Point) (float64, error) {
 	if mob == nil {
 		return 0, fmt.Errorf("silicon: Conductivity needs a non-nil Mobility")
+	}
+	if err := pt.Validate(); err != nil {
+		return 0, err
+	}
+	if err := checkAtoms("density N", pt.N); err != nil {
+		return 0, err
+	}
+	if err := checkAtoms("density P", pt.P); err != nil {
+		return 0, err
 	}
 	mun, mup, err := mob.Mobilities(pt)
 	if err != nil {
 		return 0, err
 	}
-	return ElementaryCharge * (pt.N*mun + pt.P*mup), nil
+	if err := checkMobilityResult(modelName(mob), pt, mun, mup); err != nil {
+		return 0, err
+	}
+	s := ElementaryCharge * (pt.N*mun + pt.P*mup)
+	if math.IsInf(s, 0) {
+		return 0, fmt.Errorf("silicon: conductivity not representable with mobilities mun = %g, mup = %g cm²/(V·s)", mun, mup)
+	}
+	return s, nil
 }
 
-// Resistivity returns the resistivity 1/σ in Ω·cm at pt (see Conductivity). It returns an
-// error from mob, or if pt.N = pt.P = 0 (no carriers, infinite resistivity).
+// Resistivity returns the resistivity 1/σ in Ω·cm at pt (see Conductivity). It returns the
+// errors of Conductivity, or an error if pt.N = pt.P = 0 or the carriers are so few that 1/σ
+// is not representable (infinite resistivity).
 func Resistivity(mob Mobility, pt Point) (float64, error) {
 	s, err := Conductivity(mob, pt)
 	if err != nil {
 		return 0, err
 	}
-	if !(s > 0) {
-		return 0, fmt.Errorf("silicon: resistivity infinite: no free carriers (N = %g, P = %g cm^-3)", pt.N, pt.P)
+	if r := 1 / s; s > 0 && !math.IsInf(r, 0) {
+		return r, nil
 	}
-	return 1 / s, nil
+	return 0, fmt.Errorf("silicon: resistivity infinite: too few free carriers (N = %g, P = %g cm^-3)", pt.N, pt.P)
 }
 
 // ResistivityFromDoping returns the resistivity in Ω·cm of silicon in thermal equilibrium in
@@ -61,8 +59,8 @@ func Resistivity(mob Mobility, pt Point) (float64, error) {
 // and the mobilities of mob at them. It returns an error for invalid densities or an error of
 // the equilibrium solver or of mob.
 func ResistivityFromDoping(mat *Material, mob Mobility, nd, na float64) (float64, error) {
-	if mat == nil {
-		return 0, fmt.Errorf("silicon: ResistivityFromDoping needs a non-nil Material")
+	if err := mat.ready("ResistivityFromDoping"); err != nil {
+		return 0, err
 	}
 	eq, err := mat.Equilibrium(nd, na)
 	if err != nil {
@@ -105,16 +103,19 @@ const (
 // intrinsic silicon); an error for rho not finite and > 0, an invalid dop, or comp invalid or
 // not below ResistivityNMax/2; or an error of the equilibrium solver or of mob.
 func DopingFromResistivity(mat *Material, mob Mobility, rho float64, dop Dopant, comp float64) (float64, error) {
-	if mat == nil || mob == nil {
-		return 0, fmt.Errorf("silicon: DopingFromResistivity needs a non-nil Material and Mobility")
+	if err := mat.ready("DopingFromResistivity"); err != nil {
+		return 0, err
 	}
-	if !(rho > 0) || math.IsInf(rho, 0) {
-		return 0, fmt.Errorf("silicon: DopingFromResistivity: resistivity rho must be finite and > 0 Ω·cm, got %g", rho)
+	if mob == nil {
+		return 0, fmt.Errorf("silicon: DopingFromResistivity needs a non-nil Mobility")
+	}
+	if err := check.Positive("silicon: DopingFromResistivity", "resistivity rho", rho, "Ω·cm"); err != nil {
+		return 0, err
 	}
 	if dop != Donor && dop != Acceptor {
 		return 0, fmt.Errorf("silicon: DopingFromResistivity: dopant type dop = %v is not Donor or Acceptor", dop)
 	}
-	if err := checkDensity("compensating density comp", comp); err != nil {
+	if err := check.Density("silicon: DopingFromResistivity", "compensating density comp", comp); err != nil {
 		return 0, err
 	}
 	netHi := ResistivityNMax - 2*comp

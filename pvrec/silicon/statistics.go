@@ -39,12 +39,17 @@ type CompleteIonization struct{}
 // String returns "complete ionisation".
 func (CompleteIonization) String() string { return "complete ionisation" }
 
-// Ionized returns nd and na unchanged (after checking that they are valid densities).
+// Ionized returns nd and na unchanged, after checking that t is a temperature of solid
+// silicon (0 < t <= MeltingPoint) and nd, na valid densities (finite, >= 0, at most
+// AtomDensity); etaN and etaP are not used.
 func (CompleteIonization) Ionized(t, nd, na, etaN, etaP float64) (ndIon, naIon float64, err error) {
-	if err := checkDensity("nd", nd); err != nil {
+	if err := checkSolid("CompleteIonization", t); err != nil {
 		return 0, 0, err
 	}
-	if err := checkDensity("na", na); err != nil {
+	if err := checkAtoms("density nd", nd); err != nil {
+		return 0, 0, err
+	}
+	if err := checkAtoms("density na", na); err != nil {
 		return 0, 0, err
 	}
 	return nd, na, nil

@@ -13,7 +13,7 @@ import (
 // maxIter iterations; an error from f is passed on.
 func brent(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter int) (float64, error) {
 	x, err := roots.Brent(f, a, b, fa, fb, xtol, maxIter)
-	if errors.Is(err, roots.ErrNoBracket) || errors.Is(err, roots.ErrNoConvergence) {
+	if errors.Is(err, roots.ErrNoBracket) || errors.Is(err, check.ErrNoConvergence) {
 		return 0, check.NoConvergence("surface: %v", err)
 	}
 	return x, err

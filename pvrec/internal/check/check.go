@@ -87,13 +87,9 @@ const (
 	// MaxMagnitude: a thickness, time constant or diffusivity below it makes results overflow.
 	MinPositive = 1 / MaxMagnitude
 	// MaxDensity is the largest carrier, dopant or defect density accepted, in cm^-3: the
-	// atomic density of silicon, 5.0e22 cm^-3 (S. M. Sze and K. K. Ng, Physics of
-	// Semiconductor Devices, 3rd ed., Wiley 2007, Appendix; value from memory). No density in
-	// the crystal can exceed it.
+	// atomic density of silicon, 5.0e22 cm^-3 (8 atoms per cubic cell of 5.431 Å; handbook
+	// value), exported as silicon.AtomDensity. No density in the crystal can exceed it.
 	MaxDensity = 5.0e22
-	// MaxTemperature is the largest temperature accepted, in K: the melting point of silicon,
-	// 1687 K (value from memory). Every model has a narrower window of its own.
-	MaxTemperature = 1687
 )
 
 // magnitude returns a RangeError if |v| > MaxMagnitude (v finite).
@@ -176,17 +172,11 @@ func Density(ctx, name string, v float64) error {
 	return nil
 }
 
-// Temperature returns an error unless t is a finite, positive temperature in K no higher
-// than MaxTemperature (a RangeError above it).
+// Temperature returns an error unless t is a finite, positive temperature in K. The upper
+// bound is each model's window (and silicon.MeltingPoint for the material).
 func Temperature(ctx string, t float64) error {
 	if !(t > 0) || math.IsInf(t, 0) {
 		return fmt.Errorf("%s: temperature T must be finite and > 0 K, got %g", ctx, t)
-	}
-	if t > MaxTemperature {
-		e := Range(ctx, "temperature T", "temperature T", "K", t, 0, MaxTemperature)
-		e.Model = ""
-		e.msg = fmt.Sprintf("%s: temperature T = %g K is above the melting point of silicon, %g K", ctx, t, float64(MaxTemperature))
-		return e
 	}
 	return nil
 }

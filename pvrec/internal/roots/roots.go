@@ -8,13 +8,17 @@ import (
 	"errors"
 	"fmt"
 	"math"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
-// ErrNoBracket is returned when f(a) and f(b) do not have opposite signs (or one is NaN).
+// ErrNoBracket is returned when f(a) and f(b) do not have opposite signs (or one is NaN), or
+// when Bracket finds no sign change within its limits.
 var ErrNoBracket = errors.New("roots: root not bracketed")
 
-// ErrNoConvergence is returned when the iteration limit is reached or f returns NaN.
-var ErrNoConvergence = errors.New("roots: no convergence")
+// maxBracketEvals bounds the evaluations of Bracket, so that a step too small for the range
+// (grow = 1) cannot make it run for hours.
+const maxBracketEvals = 10000
 
 // Brent returns a root of f in the bracket [a, b], where fa = f(a) and fb = f(b) have
 // opposite signs (or one is zero), to within xtol (absolute, >= 0) plus 4 ulp of the root,
@@ -22,7 +26,8 @@ var ErrNoConvergence = errors.New("roots: no convergence")
 // (Prentice-Hall, 1973), chapter 4: inverse quadratic interpolation and secant steps,
 // safeguarded by bisection, so that the bracket always shrinks to the tolerance. An error from
 // f is returned unchanged; a bracket without a sign change gives ErrNoBracket; NaN from f or
-// more than maxIter iterations give ErrNoConvergence (all wrapped with the values involved).
+// more than maxIter iterations give an error matching check.ErrNoConvergence (all with the
+// values involved in the message).
 func Brent(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter int) (float64, error) {
 	if fa == 0 {
 		return a, nil
@@ -95,10 +100,10 @@ func Brent(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter
 			return 0, err
 		}
 		if math.IsNaN(fb) {
-			return 0, fmt.Errorf("f(%g) is NaN: %w", b, ErrNoConvergence)
+			return 0, check.NoConvergence("roots: Brent: f(%g) is NaN", b)
 		}
 	}
-	return 0, fmt.Errorf("no root to tolerance in %d iterations (bracket [%g, %g]): %w", maxIter, b, c, ErrNoConvergence)
+	return 0, check.NoConvergence("roots: Brent: no root to tolerance in %d iterations (bracket [%g, %g])", maxIter, b, c)
 }
 
 // Bracket searches outward from x0, where f = f0, for an interval [lo, hi] on which the
@@ -107,7 +112,9 @@ func Brent(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter
 // direction of the search; steps start at step (> 0) and are multiplied by grow (>= 1) after
 // each evaluation, and the search stops at xmin or xmax (xmin <= x0 <= xmax). If f0 = 0 it
 // returns lo = hi = x0. An error from f is returned unchanged; reaching a limit without a sign
-// change gives ErrNoBracket, wrapped with the limit.
+// change, a fixed step (grow = 1) below the resolution of x, or 10000 steps without a sign
+// change give ErrNoBracket, wrapped with the limit; NaN from f gives an error matching
+// check.ErrNoConvergence.
 func Bracket(f func(float64) (float64, error), x0, f0, step, grow, xmin, xmax float64, increasing bool) (lo, hi, flo, fhi float64, err error) {
 	if f0 == 0 {
 		return x0, x0, f0, f0, nil
@@ -118,7 +125,10 @@ func Bracket(f func(float64) (float64, error), x0, f0, step, grow, xmin, xmax fl
 	}
 	up := (f0 < 0) == increasing // the root lies above x0
 	x, fx := x0, f0
-	for {
+	for evals := 0; ; evals++ {
+		if evals == maxBracketEvals {
+			return 0, 0, 0, 0, fmt.Errorf("no sign change in %d steps from x0 = %g (reached x = %g): %w", maxBracketEvals, x0, x, ErrNoBracket)
+		}
 		prev, fprev := x, fx
 		if up {
 			if x == xmax {
@@ -131,11 +141,18 @@ func Bracket(f func(float64) (float64, error), x0, f0, step, grow, xmin, xmax fl
 			}
 			x = math.Max(x-step, xmin)
 		}
+		if x == prev { // the step is below the resolution of x
+			if grow == 1 {
+				return 0, 0, 0, 0, fmt.Errorf("step %g below the resolution of x = %g: %w", step, x, ErrNoBracket)
+			}
+			step *= grow
+			continue
+		}
 		if fx, err = f(x); err != nil {
 			return 0, 0, 0, 0, err
 		}
 		if math.IsNaN(fx) {
-			return 0, 0, 0, 0, fmt.Errorf("f(%g) is NaN: %w", x, ErrNoConvergence)
+			return 0, 0, 0, 0, check.NoConvergence("roots: Bracket: f(%g) is NaN", x)
 		}
 		if fx == 0 || (fx > 0) != (fprev > 0) {
 			if up {

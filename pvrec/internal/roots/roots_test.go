@@ -4,6 +4,8 @@ import (
 	"errors"
 	"math"
 	"testing"
+
+	"github.com/pvrec/pvrec/pvrec/internal/check"
 )
 
 func TestBrentKnownRoots(t *testing.T) {
@@ -52,12 +54,12 @@ func TestBrentErrors(t *testing.T) {
 		t.Errorf("error from f not passed on: %v", err)
 	}
 	nan := func(x float64) (float64, error) { return math.NaN(), nil }
-	if _, err := Brent(nan, -1, 1, -1, 1, 0, 100); !errors.Is(err, ErrNoConvergence) {
+	if _, err := Brent(nan, -1, 1, -1, 1, 0, 100); !errors.Is(err, check.ErrNoConvergence) {
 		t.Errorf("NaN from f: %v", err)
 	}
 	// A step function gives Brent nothing to interpolate: it bisects, far more than 3 times.
 	step := func(x float64) (float64, error) { return math.Copysign(1, x-0.3), nil }
-	if _, err := Brent(step, -1e3, 1e3, -1, 1, 0, 3); !errors.Is(err, ErrNoConvergence) {
+	if _, err := Brent(step, -1e3, 1e3, -1, 1, 0, 3); !errors.Is(err, check.ErrNoConvergence) {
 		t.Errorf("iteration limit: %v", err)
 	}
 	slow := func(x float64) (float64, error) { return x - 0.3, nil }
@@ -139,5 +141,29 @@ func TestBracket(t *testing.T) {
 	bad := func(float64) (float64, error) { return 0, boom }
 	if _, _, _, _, err := Bracket(bad, 0, -1, 1, 2, -100, 100, true); !errors.Is(err, boom) {
 		t.Errorf("error from f not passed on: %v", err)
+	}
+}
+
+// TestBracketBounded checks that Bracket stops, with ErrNoBracket, when a fixed step cannot
+// move x (x0 = 1e20, step 1) and when an unbounded range holds no sign change; before the
+// evaluation limit the first case looped for ever. NaN from f matches check.ErrNoConvergence.
+func TestBracketBounded(t *testing.T) {
+	evals := 0
+	neg := func(float64) (float64, error) { evals++; return -1, nil }
+	if _, _, _, _, err := Bracket(neg, 1e20, -1, 1, 1, 0, math.Inf(1), true); !errors.Is(err, ErrNoBracket) || evals != 0 {
+		t.Errorf("step below the resolution: %v after %d evaluations", err, evals)
+	}
+	evals = 0
+	if _, _, _, _, err := Bracket(neg, 0, -1, 1, 1, 0, math.Inf(1), true); !errors.Is(err, ErrNoBracket) || evals > maxBracketEvals {
+		t.Errorf("unbounded range: %v after %d evaluations", err, evals)
+	}
+	// A growing step that starts below the resolution grows until it moves x.
+	inc := func(x float64) (float64, error) { return x - 2e20, nil }
+	if lo, hi, _, _, err := Bracket(inc, 1e20, -1e20, 1, 2, 0, 1e21, true); err != nil || !(lo < 2e20 && 2e20 <= hi) {
+		t.Errorf("growing step from below the resolution: [%g, %g], %v", lo, hi, err)
+	}
+	nan := func(float64) (float64, error) { return math.NaN(), nil }
+	if _, _, _, _, err := Bracket(nan, 0, -1, 1, 2, -10, 10, true); !errors.Is(err, check.ErrNoConvergence) {
+		t.Errorf("NaN from f: %v", err)
 	}
 }
