@@ -51,6 +51,8 @@ vet:
 
 gotest:
 	go test ./...
+	@go test -count=1 -run 'TestBattery$$' -v ./pvrec/internal/battery | grep '^battery:'
+
 
 bench:
 	go test -run '^$$' -bench . -benchmem ./...

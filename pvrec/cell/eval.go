@@ -29,9 +29,9 @@ type Budget struct {
 }
 
 // Share returns the fraction of the total recombination current carried by term i
-// (dimensionless, 0 if the total is 0).
+// (dimensionless; 0 if the total is 0 or i is not an index of Terms).
 func (b Budget) Share(i int) float64 {
-	if b.Total == 0 {
+	if b.Total == 0 || i < 0 || i >= len(b.Terms) {
 		return 0
 	}
 	return b.Terms[i].J / b.Total

@@ -246,7 +246,11 @@ func (d *Device) maxPower(oc Point) (Point, error) {
 	return d.point(math.Exp(x))
 }
 
-// Curve returns the J–V curve with n points (n >= 2) from short circuit to open circuit
+// MaxCurvePoints is the largest number of points Curve and CurveAt compute: a J–V curve of a
+// million points is far beyond any use, and a larger request is an error, not minutes of work.
+const MaxCurvePoints = 1000000
+
+// Curve returns the J–V curve with n points (2 <= n <= MaxCurvePoints) from short circuit to open circuit
 // (both included, solved as in ShortCircuit and OpenCircuit). The points between them are at
 // evenly spaced internal voltages (up to the injection dependence of ni,eff, which shifts
 // them by far less than the spacing), parameterised by Δn without a root each: with series
@@ -258,6 +262,9 @@ func (d *Device) Curve(n int) (Curve, error) {
 	}
 	if n < 2 {
 		return Curve{}, fmt.Errorf("cell: Curve: number of points n must be >= 2, got %d", n)
+	}
+	if n > MaxCurvePoints {
+		return Curve{}, fmt.Errorf("cell: Curve: n = %d points, more than MaxCurvePoints = %d", n, MaxCurvePoints)
 	}
 	sc, err := d.ShortCircuit()
 	if err != nil {
@@ -296,6 +303,9 @@ func (d *Device) CurveAt(v []float64) (Curve, error) {
 	}
 	if len(v) == 0 {
 		return Curve{}, fmt.Errorf("cell: CurveAt: no voltages")
+	}
+	if len(v) > MaxCurvePoints {
+		return Curve{}, fmt.Errorf("cell: CurveAt: %d voltages, more than MaxCurvePoints = %d", len(v), MaxCurvePoints)
 	}
 	n := len(v)
 	c := Curve{V: make([]float64, n), J: make([]float64, n), P: make([]float64, n), Vi: make([]float64, n), Dn: make([]float64, n)}

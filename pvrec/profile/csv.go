@@ -77,6 +77,9 @@ const maxEcho = 40
 // million rows (20 MB) is read in about 0.2 s.
 func ReadCSV(r io.Reader) (Measured, error) {
 	var m Measured
+	if r == nil {
+		return Measured{}, fmt.Errorf("profile: ReadCSV: reader r is nil")
+	}
 	sc := bufio.NewScanner(r)
 	sc.Buffer(make([]byte, 0, 4096), maxLine)
 	sc.Split(scanLines)
@@ -166,12 +169,15 @@ func ReadCSV(r io.Reader) (Measured, error) {
 func ReadCSVFile(path string) (Measured, error) {
 	f, err := os.Open(path)
 	if err != nil {
+		if len(path) > 200 { // keep the message short; the os error repeats the path
+			return Measured{}, fmt.Errorf("profile: cannot open %s: %w", echo(path), errors.Unwrap(err))
+		}
 		return Measured{}, fmt.Errorf("profile: %w", err)
 	}
 	defer f.Close()
 	m, err := ReadCSV(f)
 	if err != nil {
-		return Measured{}, fmt.Errorf("%s: %w", path, err)
+		return Measured{}, fmt.Errorf("%s: %w", echo(path), err)
 	}
 	return m, nil
 }
@@ -324,6 +330,9 @@ func parseNumber(line int, what, f string) (float64, error) {
 // It returns an error for an unknown unit, mismatched lengths or a write error; it does not
 // otherwise validate the data (ReadCSV does).
 func WriteCSV(w io.Writer, m Measured) error {
+	if w == nil {
+		return fmt.Errorf("profile: WriteCSV: writer w is nil")
+	}
 	unit := m.Unit
 	if unit == "" {
 		unit = "um"

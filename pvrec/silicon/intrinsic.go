@@ -21,8 +21,8 @@ func arrheniusNi(model string, t, a, e, ta, tmin, tmax float64) (float64, error)
 
 // checkNi returns ni, or an error if the model's parameters made it non-finite or <= 0.
 func checkNi(model string, t, ni float64) (float64, error) {
-	if !(ni > 0) || math.IsInf(ni, 0) {
-		return 0, fmt.Errorf("silicon: %s: parameters give ni = %g cm^-3 at T = %g K; want finite > 0", model, ni, t)
+	if !(ni > 0) || math.IsInf(ni, 0) || ni > AtomDensity {
+		return 0, fmt.Errorf("silicon: %s: parameters give ni = %g cm^-3 at T = %g K; want finite, > 0 and below the atom density %g cm^-3", model, ni, t, AtomDensity)
 	}
 	return ni, nil
 }

@@ -45,8 +45,8 @@ func (m ConstantMobility) Mobilities(pt Point) (mun, mup float64, err error) {
 	if err := pt.Validate(); err != nil {
 		return 0, 0, err
 	}
-	if !(m.Electron > 0) || !(m.Hole > 0) || math.IsInf(m.Electron, 0) || math.IsInf(m.Hole, 0) {
-		return 0, 0, fmt.Errorf("silicon: %s: mobilities must be finite and > 0 cm²/(V·s)", m)
+	if !(m.Electron > 0) || !(m.Hole > 0) || m.Electron > check.MaxMagnitude || m.Hole > check.MaxMagnitude {
+		return 0, 0, fmt.Errorf("silicon: %s: mobilities must be finite and > 0 cm²/(V·s), at most %g", m, float64(check.MaxMagnitude))
 	}
 	return m.Electron, m.Hole, nil
 }
