@@ -18,10 +18,12 @@
 //   - j0: saturation-current densities of bases and diffused regions: integral forms and the
 //     numerical solver.
 //   - lifetime: lifetime samples: steady state under generation (more to come).
-//   - cell: device-level voltages: implied and ideal-diode open-circuit voltage.
+//   - cell: a cell built from its parts: recombination budget, Voc, J–V curves, fill factor,
+//     efficiency, loss ranking, temperature coefficients, intrinsic limit; implied and
+//     ideal-diode voltages.
 //   - sweep: concurrent evaluation over an index range, results in input order, panics
 //     turned into errors (no physics; used by j0 and the notebooks).
-//   - plots: figure builders on gonum/plot with one house style.
+//   - plots: figure builders on gonum/plot with one house style (lines, bar charts).
 //   - nb: display helpers for GoNB notebooks.
 //
 // Units are the field's throughout: cm, cm^-3, s, A/cm^2, V, K, eV.

@@ -223,9 +223,7 @@ func isNil(v any) bool {
 // stable for such matrices (N. J. Higham, Accuracy and Stability of Numerical Algorithms,
 // 2nd ed., SIAM 2002, on tridiagonal systems), here written as a recursion of positive terms
 // for the excess of each pivot over its coupling, without subtractions, so that J0 keeps
-// full precision however fine the mesh; gonum's banded
-// Cholesky (mat.BandCholesky) would allocate per solve and form its pivots by subtraction.
-// The error is of second order in the cell size.
+// full precision however fine the mesh. The error is of second order in the cell size.
 //
 // Mesh control. The initial mesh adapts to the profile: nodes are placed so that ln|N|, N the
 // net doping, changes by at most InitialStep per cell (and at least four cells span the
@@ -252,6 +250,9 @@ func isNil(v any) bool {
 // meets RelTol (the estimate is then the difference of the last two extrapolations, or of the
 // last two meshes when only two were solved).
 func (s Solver) Solve(r Region) (Result, error) {
+	// The tridiagonal system is solved by the hand-written recursion of positive terms (see
+	// work.solve), not gonum's banded Cholesky (mat.BandCholesky), which would allocate per
+	// solve and form its pivots by subtraction, losing digits on fine meshes.
 	st, err := s.prepare(r)
 	if err != nil {
 		return Result{}, err
@@ -406,8 +407,8 @@ func initialMeshMax(p profile.Profile, w, step float64, maxNodes int) ([]float64
 	}
 	cells := math.Max(math.Ceil(cum[samples]-1e-9), minCells)
 	if !(cells+1 <= float64(maxNodes)) { // also +Inf and NaN, before any allocation
-		return nil, check.NoConvergence("j0: Solver.InitialStep = %g gives an initial mesh of %.3g nodes, more than MaxNodes = %d; raise InitialStep (or MaxNodes)",
-			step, cells+1, maxNodes)
+		return nil, check.NoConvergence("j0: Solver.InitialStep = %g gives an initial mesh of %.3g nodes, more than the node limit %d (Solver.MaxNodes for Solve, %d for the integral forms); raise InitialStep",
+			step, cells+1, maxNodes, maxInitialNodes)
 	}
 	n := int(cells)
 	xs := make([]float64, n+1)
