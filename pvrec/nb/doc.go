@@ -1,6 +1,10 @@
 // Package nb holds the display helpers for pvrec's GoNB notebooks: figures shown inline as SVG,
 // HTML tables whose column headers carry units, and a provenance footer naming the pvrec
-// version and the model set behind the numbers.
+// version and the model set behind the numbers; and the notebook kit, so that no notebook
+// redefines a helper: Must and Check (stop a cell with a readable error), LogSpan and LinSpan,
+// unit factors for display (FemtoAmpPerCm2, MilliVolt, Microsecond, ...) and Scaled, tables
+// from typed columns with units and a CSV download (Column, Columns), and ShowFooted (a figure
+// with its provenance footer).
 //
 // It is the only pvrec package that imports gonbui (github.com/janpfeifer/gonb/gonbui). The
 // HTML builders (TableHTML, FooterHTML) are pure functions, so they can be tested and reused
