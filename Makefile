@@ -2,7 +2,8 @@
 #
 #   make demo   install what is missing, then execute every notebook headless and write the
 #               executed notebooks and their HTML renderings to out/notebooks/
-#   make test   the same installs, then go vet, go test and an execution of every notebook
+#   make test   the same installs, then go vet, go test, an execution of every notebook, and a
+#               look at every rendered notebook in headless Chromium (screenshots in out/notebooks/)
 #
 # Other targets: make setup (installs only), make bench, make reference (regenerate the committed
 # reference tables in testdata/reference from Debian's python3-mpmath / python3-scipy: each generator
@@ -14,13 +15,14 @@ GOBIN := $(shell go env GOPATH)/bin
 export PATH := $(GOBIN):$(PATH)
 OUT := out/notebooks
 
-.PHONY: demo test setup setup-jupyter setup-go vet gotest notebooks bench reference strip
+.PHONY: demo test setup setup-jupyter setup-go setup-browser vet gotest notebooks bench reference strip
 
 demo: setup
 	@notebooks/run.sh $(OUT)
 
-test: setup vet gotest
+test: setup setup-browser vet gotest
 	@notebooks/run.sh $(OUT)
+	@notebooks/browser.sh $(OUT)
 
 setup: setup-jupyter setup-go
 
@@ -35,6 +37,18 @@ setup-jupyter:
 	else \
 		echo "setup: please install Debian's jupyter-nbconvert, jupyter-client and python3-ipykernel"; \
 		echo "       (sudo apt-get install jupyter-nbconvert jupyter-client python3-ipykernel), then rerun"; \
+		exit 1; \
+	fi
+
+# Debian's Chromium, in which make test opens every rendered notebook as a reader would.
+setup-browser:
+	@if command -v chromium >/dev/null; then \
+		echo "setup: Chromium present"; \
+	elif [ "$$(id -u)" = 0 ]; then \
+		echo "setup: installing Debian's chromium"; \
+		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium >/dev/null; \
+	else \
+		echo "setup: please install Debian's chromium (sudo apt-get install chromium), then rerun"; \
 		exit 1; \
 	fi
 
