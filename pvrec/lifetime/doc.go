@@ -17,5 +17,10 @@
 //   - Sample.ImpliedJV and JV.MaxPower: the implied J–V curve by superposition and the implied
 //     fill factor (local diode fit around the maximum power point).
 //
+// Measurements
+//
+//   - Trace, Table and their CSV formats (ReadTrace, ReadTable, WriteTrace, WriteTable; see
+//     docs/lifetime-csv.md).
+//
 // Units: cm, cm^-3, s, A/cm^2, V, S (siemens), suns.
 package lifetime
