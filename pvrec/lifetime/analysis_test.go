@@ -23,7 +23,7 @@ func TestModesAgree(t *testing.T) {
 	b := wafer(t, 0, 2e15)
 	s := lifetime.Sample{Wafer: b, W: width, Bulk: recomb.Sum{recomb.NewIntrinsic(), recomb.SRH{Level: recomb.FromEi(0), TauN0: 2e-3, TauP0: 2e-3}},
 		Front: surface.ConstantJ0s{J0s: 20e-15}, Rear: surface.ConstantSeff{S: 5}}
-	qss, dark, flash := qssTrace(t, s, 2000), transientTrace(t, s, 5000), flashTrace(t, s, 3000)
+	qss, dark, flash := qssTrace(t, s, 2000), transientTrace(t, s, 5000), flashTrace(t, s, 7500)
 	lit := dark // the decay with its (dark) illumination recorded, for the generalised analysis
 	lit.Illumination, lit.Unit = make([]float64, len(dark.Time)), lifetime.Suns
 	results := map[string]*lifetime.Result{

@@ -112,7 +112,7 @@ func ExampleAnalysis_Analyze() {
 	// Output:
 	// 4000 points analysed, 0 warnings
 	// τeff(1e15 cm^-3) = 4.390 ms
-	// J0s = 15.02 ± 0.00 fA/cm^2 per side from 616 points in [2e+15, 2e+16] cm^-3
+	// J0s = 15.01 ± 0.00 fA/cm^2 per side from 1046 points in [1e+15, 1e+16] cm^-3
 }
 
 // Read a trace in the package's CSV format (docs/lifetime-csv.md): a detector signal with its

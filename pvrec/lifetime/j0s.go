@@ -29,9 +29,9 @@ type J0sOptions struct {
 }
 
 // DefaultJ0sWindow returns the default J0s fitting window of wafer b, cm^-3: one decade from
-// max(2 N, 1e15 cm^-3), with N the majority-carrier density of b in equilibrium (our choice,
-// no source). Above 2 N the abscissa (N + Δn) of the fit changes by a factor of seven across
-// the window, so the slope is well determined; staying above 1e15 cm^-3 keeps the fit clear of
+// max(N, 1e15 cm^-3), with N the majority-carrier density of b in equilibrium (our choice,
+// no source). Above N the abscissa (N + Δn) of the fit changes by a factor of 5.5 across the
+// window, so the slope is well determined; staying above 1e15 cm^-3 keeps the fit clear of
 // the low-injection range, where bulk Shockley–Read–Hall recombination changes with Δn and
 // trapping artefacts appear. It returns 0, 0 for a nil b.
 func DefaultJ0sWindow(b *recomb.Bulk) (dnMin, dnMax float64) {
@@ -39,7 +39,7 @@ func DefaultJ0sWindow(b *recomb.Bulk) (dnMin, dnMax float64) {
 		return 0, 0
 	}
 	eq := b.Equilibrium()
-	lo := math.Max(2*math.Max(eq.N0, eq.P0), 1e15)
+	lo := math.Max(math.Max(eq.N0, eq.P0), 1e15)
 	return lo, 10 * lo
 }
 

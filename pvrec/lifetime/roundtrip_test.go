@@ -51,12 +51,12 @@ func TestRoundTripLifetime(t *testing.T) {
 	s := j0sSample(b, 10e-15)
 	checkLifetimes(t, "QSS", s, analyse(t, analysis(b, lifetime.QSS), qssTrace(t, s, 3000)))
 	checkLifetimes(t, "transient", s, analyse(t, analysis(b, lifetime.Transient), transientTrace(t, s, 5000)))
-	checkLifetimes(t, "generalised", s, analyse(t, analysis(b, lifetime.Generalised), flashTrace(t, s, 3000)))
+	checkLifetimes(t, "generalised", s, analyse(t, analysis(b, lifetime.Generalised), flashTrace(t, s, 7500)))
 
 	p := wafer(t, 0, 1.5e16)
 	d := surface.NewExtendedSRH(surface.ConstantDit{D: 1e11}, surface.ConstantSigma(1e-14), surface.ConstantSigma(1e-16), -2e12)
 	x := lifetime.Sample{Wafer: p, W: width, Bulk: recomb.NewIntrinsic(), Front: d}
-	checkLifetimes(t, "generalised, extended SRH", x, analyse(t, analysis(p, lifetime.Generalised), flashTrace(t, x, 2000)))
+	checkLifetimes(t, "generalised, extended SRH", x, analyse(t, analysis(p, lifetime.Generalised), flashTrace(t, x, 7500)))
 }
 
 // TestRoundTripJ0s: the Kane–Swanson fit recovers J0s from 1 to 100 fA/cm² per side from
@@ -71,7 +71,7 @@ func TestRoundTripJ0s(t *testing.T) {
 		}{
 			{lifetime.QSS, qssTrace(t, s, 2000)},
 			{lifetime.Transient, transientTrace(t, s, 5000)},
-			{lifetime.Generalised, flashTrace(t, s, 2000)},
+			{lifetime.Generalised, flashTrace(t, s, 7500)},
 		} {
 			r := analyse(t, analysis(b, c.mode), c.tr)
 			f, err := r.J0s(lifetime.J0sOptions{})

@@ -57,13 +57,14 @@ func qssTrace(t testing.TB, s lifetime.Sample, n int) lifetime.Trace {
 }
 
 // flashTrace: a flash rising on 0.2 tau0 and decaying as fast as the lifetime,
-// 50 suns · (1 − exp(−t/(0.2 tau0))) exp(−t/tau0), from the dark, over 12 tau0: far from both
-// the quasi-steady state and a free decay.
+// 50 suns · (1 − exp(−t/(0.2 tau0))) exp(−t/tau0), from the dark, over 10 tau0: far from both
+// the quasi-steady state and a free decay (n = 7500 gives the 30 samples per local time scale
+// that the adaptive smoothing needs at the peak).
 func flashTrace(t testing.TB, s lifetime.Sample, n int) lifetime.Trace {
 	t.Helper()
 	tau0 := mustLifetime(t, s, 1e15)
 	suns := func(x float64) float64 { return 50 * -math.Expm1(-x/(0.2*tau0)) * math.Exp(-x/tau0) }
-	tr, err := s.Simulate(optics, times(n, 12*tau0), suns, 0)
+	tr, err := s.Simulate(optics, times(n, 10*tau0), suns, 0)
 	if err != nil {
 		t.Fatal(err)
 	}
