@@ -303,7 +303,7 @@ func (a Analysis) Analyze(tr Trace) (*Result, error) {
 	mu0 := math.Exp(tab.at(colY, tab.xMin) - tab.xMin) // μn + μp at the ends of the table
 	mu1 := math.Exp(tab.at(colY, tab.xMax) - tab.xMax)
 	dn := make([]float64, n)
-	x := make([]float64, n)
+	x := make([]float64, n) // ln Δn where Δn > 0
 	// Why each point is excluded before the lifetime (0: retained so far).
 	const (
 		keep uint8 = iota
@@ -320,8 +320,10 @@ func (a Analysis) Analyze(tr Trace) (*Result, error) {
 			dn[i], state[i] = sigma/(qw*mu0), nonPositive
 		case y < tab.yMin-tableTol:
 			dn[i], state[i] = sigma/(qw*mu0), below
+			x[i] = y - math.Log(mu0)
 		case y > tab.yMax+tableTol:
 			dn[i], state[i] = sigma/(qw*mu1), above
+			x[i] = y - math.Log(mu1)
 		default:
 			x[i] = tab.excess(y)
 			dn[i] = math.Exp(x[i])
@@ -342,7 +344,7 @@ func (a Analysis) Analyze(tr Trace) (*Result, error) {
 	var coarse []bool
 	if a.Mode != QSS {
 		deriv = make([]float64, n)
-		coarse = smoothDerivative(tr.Time, dn, gen, a.HalfWidth, deriv)
+		coarse = smoothDerivative(tr.Time, dn, x, gen, a.HalfWidth, deriv)
 	}
 	var nCoarse int
 	cmin, cmax := math.Inf(1), 0.0

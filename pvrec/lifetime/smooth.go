@@ -17,20 +17,22 @@ import "math"
 // The window trades noise for bias. For white noise of standard deviation σ on the fitted
 // values and equal steps Δt, the slope's noise is σ sqrt(3/(k(k+1)(2k+1)))/Δt; its bias, for
 // a decay with local time scale τc = Δn/|dΔn/dt| and s = d ln τeff/d ln Δn, is about
-// 2 s² (k Δt/τc)²/10 relative in ln Δn (the cubic term the parabola omits). A decay from high injection is fast at its start and slow at its end, so no single k
-// suits a whole trace. By default (Analysis.HalfWidth = 0) the window is therefore adapted to
-// each point: its half-width spans SmoothingFraction of the local τc (a bias of about
-// 5e-4 s²; under illumination τc is Δn/max(|dΔn/dt|, G), so that it stays near τeff at the
-// peak of a flash),
-// between 2 points and MaxHalfWidth(n) points. τc is estimated from the derivative itself,
-// starting with the widest window and refining twice, each refinement shrinking a window that
-// is too wide by about SmoothingFraction, at every (MaxHalfWidth/8)-th point, and each point
-// takes the window of the nearest such estimate (our choice of method, no source).
+// 2 s² (k Δt/τc)²/10 relative in ln Δn (the cubic term the parabola omits), and relative to
+// 1/τeff = G/Δn − d ln Δn/dt it is that times τeff/τc. A decay from high injection is fast at
+// its start and slow at its end, so no single k suits a whole trace. By default
+// (Analysis.HalfWidth = 0) the window is therefore adapted to each point: its half-width spans
+// SmoothingFraction of T = τc sqrt(τc/τeff) (windowScale), which makes the bias of 1/τeff
+// about 5e-4 s² everywhere: T = τc in a free decay, and T grows where the light holds the
+// sample near its quasi-steady state and the derivative is only a small correction; the
+// half-width stays between 2 points and MaxHalfWidth(n). T is estimated from the derivative
+// itself, starting with the widest window and refining twice (each refinement shrinks a window
+// that is too wide by about SmoothingFraction), at every (MaxHalfWidth/8)-th point, and each
+// point takes the window of the nearest such estimate (our choice of method, no source).
 
 // SmoothingFraction is the half-width of the adaptive smoothing window as a fraction of the
-// local time scale Δn/|dΔn/dt|: 0.05, for a relative bias of the derivative of about 5e-4 s²
-// with s = d ln τeff/d ln Δn (2e-3 where Auger recombination dominates, s = −2), while a
-// window of ±0.05 τc still averages 2·0.05 τc/Δt points (our choice, no source).
+// time scale T of windowScale: 0.05, for a relative bias of 1/τeff of about 5e-4 s² with
+// s = d ln τeff/d ln Δn (2e-3 where Auger recombination dominates, s = −2), while a window of
+// ±0.05 T still averages 0.1 T/Δt points (our choice, no source).
 const SmoothingFraction = 0.05
 
 // MaxHalfWidth returns the largest half-width k of the adaptive smoothing window for a trace of
@@ -50,25 +52,50 @@ const uniformStepTol = 1e-9
 // least-squares parabola, fitted to ln y where the window holds only y > 0 and to y otherwise.
 type derivative struct {
 	t, y    []float64
-	ly      []float64 // ln y (NaN where y <= 0)
+	ly      []float64 // ln y where y > 0
 	bad     []int     // bad[i]: number of points with y <= 0 among the first i
 	uniform bool
 	step    float64 // the common step when uniform, s
+	// With equal steps, prefix sums of u = ln y − (its mean) (0 where y <= 0): sum[m] = Σ u_l
+	// and moment[m] = Σ l u_l over l < m, so that a centred window's Σ j u_{i+j} costs O(1).
+	sum, moment []float64
 }
 
-func newDerivative(t, y []float64) derivative {
+// newDerivative prepares the derivative of (t, y) with ly[i] = ln y[i] where y[i] > 0 (any
+// value elsewhere; the caller has the logarithms already).
+func newDerivative(t, y, ly []float64) derivative {
 	n := len(t)
-	d := derivative{t: t, y: y, ly: make([]float64, n), bad: make([]int, n+1), uniform: true, step: (t[n-1] - t[0]) / float64(n-1)}
+	d := derivative{t: t, y: y, ly: ly, bad: make([]int, n+1), uniform: true, step: (t[n-1] - t[0]) / float64(n-1)}
 	for i := range n {
 		if i > 0 && d.uniform {
 			d.uniform = math.Abs(t[i]-t[i-1]-d.step) <= uniformStepTol*d.step
 		}
 		d.bad[i+1] = d.bad[i]
-		if y[i] > 0 {
-			d.ly[i] = math.Log(y[i])
-		} else {
-			d.ly[i] = math.NaN()
+		if !(y[i] > 0) {
 			d.bad[i+1]++
+		}
+	}
+	if d.uniform {
+		// Rounding: |moment| <= n² max|u|/2, so a window's sum carries an absolute error of
+		// about 1e-16 n² max|u| (max|u| ≈ 5, the spread of ln Δn), and the slope an error of
+		// about 1.5e-16 n² max|u|/(Δt k³). Where the adaptive rule sets k, k >= 0.05 τeff/Δt,
+		// so relative to 1/τeff this is below 3e-15 n² max|u|/k²: under 1e-6 for traces of up
+		// to 10,000 points, growing as n² beyond.
+		var mean float64
+		good := n - d.bad[n]
+		for i := range n {
+			if y[i] > 0 {
+				mean += ly[i] / float64(good)
+			}
+		}
+		d.sum, d.moment = make([]float64, n+1), make([]float64, n+1)
+		for i := range n {
+			u := 0.0
+			if y[i] > 0 {
+				u = ly[i] - mean
+			}
+			d.sum[i+1] = d.sum[i] + u
+			d.moment[i+1] = d.moment[i] + float64(i)*u
 		}
 	}
 	return d
@@ -82,8 +109,14 @@ func (d derivative) at(i, k int) float64 {
 	lo := min(max(i-k, 0), n-2*k-1)
 	hi := lo + 2*k
 	v, scale := d.y, 1.0
-	if d.bad[hi+1] == d.bad[lo] {
+	logs := d.bad[hi+1] == d.bad[lo]
+	if logs {
 		v, scale = d.ly, d.y[i]
+	}
+	if d.uniform && lo == i-k && logs {
+		// Σ_{|j|<=k} j u_{i+j} from the prefix sums.
+		s := (d.moment[hi+1] - d.moment[lo]) - float64(i)*(d.sum[hi+1]-d.sum[lo])
+		return scale * 3 * s / (d.step * float64(k*(k+1)*(2*k+1)))
 	}
 	if d.uniform && lo == i-k {
 		// Centred window on equal steps: the parabola's slope at the centre is that of the
@@ -103,14 +136,31 @@ func (d derivative) at(i, k int) float64 {
 	return scale * c1 / h
 }
 
-// smoothDerivative stores in dst the smoothed dy/dt at each point of (t, y): with the fixed
-// half-width k if k > 0, else with the adaptive window described above, whose time scale is
-// y/max(|dy/dt|, g) with g the generation rate (nil for none): near the peak of a flash, where
-// dy/dt vanishes, the window follows the lifetime y/g instead. With the adaptive window it
+// windowScale returns the time scale T of the adaptive window at a point with excess density
+// dn, derivative d = dΔn/dt and generation rate g (0 in the dark), s: T = τc sqrt(τc/τeff)
+// with τc = Δn/|dΔn/dt| and τeff = Δn/(G − dΔn/dt), which is τc for a free decay, longer
+// than τc in a quasi-steady state (there the derivative is a small correction to G) and +Inf
+// at the peak of a flash (dΔn/dt = 0; the window is then capped).
+func windowScale(dn, d, g float64) float64 {
+	net := g - d // Δn/τeff
+	if !(net > 0) || d == 0 {
+		if d == 0 && net > 0 {
+			return math.Inf(1)
+		}
+		return 0 // the formula does not apply: the smallest window
+	}
+	tc := math.Abs(dn / d)
+	return tc * math.Sqrt(net/math.Abs(d))
+}
+
+// smoothDerivative stores in dst the smoothed dy/dt at each point of (t, y), with ly the
+// logarithms of the positive y: with the fixed half-width k if k > 0, else with the adaptive
+// window described above (windowScale, with g the generation rate; nil for none). With the
+// adaptive window it
 // returns, per point, whether the sampling is too coarse for it (the window wanted fewer than
 // 2 points each side and was widened to 2); nil with a fixed k.
-func smoothDerivative(t, y, g []float64, k int, dst []float64) (coarse []bool) {
-	d := newDerivative(t, y)
+func smoothDerivative(t, y, ly, g []float64, k int, dst []float64) (coarse []bool) {
+	d := newDerivative(t, y, ly)
 	n := len(t)
 	if k > 0 {
 		for i := range n {
@@ -129,13 +179,13 @@ func smoothDerivative(t, y, g []float64, k int, dst []float64) (coarse []bool) {
 		a, b := max(i-1, 0), min(i+1, n-1)
 		step := (t[b] - t[a]) / float64(b-a) // local sampling step
 		k := kmax
-		rate := 0.0
+		gen := 0.0
 		if g != nil {
-			rate = g[i]
+			gen = g[i]
 		}
 		for range smoothingRefinements {
-			want := SmoothingFraction * math.Abs(y[i]) / math.Max(math.Abs(d.at(i, k)), rate) / step
-			k = min(max(int(math.Round(want)), 2), kmax)
+			want := SmoothingFraction * windowScale(y[i], d.at(i, k), gen) / step
+			k = int(math.Round(math.Min(math.Max(want, 2), float64(kmax))))
 			few[p] = want < 1.5
 		}
 		ks[p] = k

@@ -11,6 +11,18 @@ import (
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
+// logs returns ln y, NaN where y <= 0.
+func logs(y []float64) []float64 {
+	l := make([]float64, len(y))
+	for i, v := range y {
+		l[i] = math.NaN()
+		if v > 0 {
+			l[i] = math.Log(v)
+		}
+	}
+	return l
+}
+
 func uniformTimes(n int, dt float64) []float64 {
 	t := make([]float64, n)
 	for i := range t {
@@ -34,13 +46,13 @@ func TestDerivativeExact(t *testing.T) {
 	}
 	d := make([]float64, n)
 	for _, k := range []int{2, 7, 40} {
-		smoothDerivative(ts, exp, nil, k, d)
+		smoothDerivative(ts, exp, logs(exp), nil, k, d)
 		for i := range d {
 			if want := -exp[i] / 3e-5; math.Abs(d[i]/want-1) > 1e-9 {
 				t.Fatalf("k %d, point %d: exponential derivative %g, want %g", k, i, d[i], want)
 			}
 		}
-		smoothDerivative(ts, par, nil, k, d)
+		smoothDerivative(ts, par, logs(par), nil, k, d)
 		for i, x := range ts {
 			if want := -6e8 * (x - 1e-4); math.Abs(d[i]-want) > 1e-6*6e8*1e-4 {
 				t.Fatalf("k %d, point %d: parabola derivative %g, want %g", k, i, d[i], want)
@@ -61,12 +73,12 @@ func TestDerivativeUniformPath(t *testing.T) {
 		jit[i] += 1e-13 * rng.Float64()
 		y[i] = 1e15 * math.Exp(-ts[i]/5e-5) * (1 + 0.01*math.Sin(float64(i)))
 	}
-	if !newDerivative(ts, y).uniform || newDerivative(jit, y).uniform {
+	if !newDerivative(ts, y, logs(y)).uniform || newDerivative(jit, y, logs(y)).uniform {
 		t.Fatal("uniform-step detection")
 	}
 	a, b := make([]float64, n), make([]float64, n)
-	smoothDerivative(ts, y, nil, 9, a)
-	smoothDerivative(jit, y, nil, 9, b)
+	smoothDerivative(ts, y, logs(y), nil, 9, a)
+	smoothDerivative(jit, y, logs(y), nil, 9, b)
 	for i := range a {
 		if math.Abs(a[i]-b[i]) > 1e-5*math.Abs(a[i]) {
 			t.Fatalf("point %d: %g with equal steps, %g with the general fit", i, a[i], b[i])
@@ -87,7 +99,7 @@ func TestDerivativeNoise(t *testing.T) {
 		y[i] = sigma * rng.NormFloat64()
 	}
 	d := make([]float64, n)
-	smoothDerivative(ts, y, nil, k, d)
+	smoothDerivative(ts, y, logs(y), nil, k, d)
 	got := stat.StdDev(d[k:n-k], nil)
 	want := sigma * math.Sqrt(3/float64(k*(k+1)*(2*k+1))) / dt
 	if math.Abs(got/want-1) > 0.1 {
