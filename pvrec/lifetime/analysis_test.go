@@ -393,3 +393,57 @@ func sum(m map[string]int) int {
 	}
 	return n
 }
+
+// TestDemoTrial: every invented demo file of testdata/lifetime reads, says it is invented, and
+// analyses without error; the decay and the flash of sample A3 agree on τeff at 1e15 cm^-3 and
+// on iVoc at one sun (two analyses of one sample, within the invented noise: 1 %, 0.5 mV).
+func TestDemoTrial(t *testing.T) {
+	p := wafer(t, 0, 1.5e16)
+	a := lifetime.Analysis{Wafer: p, W: width, Mode: lifetime.Generalised,
+		Optics: lifetime.Optics{FluxPerSun: lifetime.OneSunFlux, Absorbed: 0.92}, Intrinsic: recomb.NewIntrinsic()}
+	results := map[string]*lifetime.Result{}
+	for _, name := range []string{"A1", "A2", "A3", "A4", "A3-decay"} {
+		tr, err := lifetime.ReadTraceFile("../../testdata/lifetime/trial-" + name + ".csv")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if len(tr.Comments) == 0 || !strings.HasPrefix(tr.Comments[0], "INVENTED") {
+			t.Errorf("%s: first comment %q does not say the data are invented", name, tr.Comments)
+		}
+		x := a
+		if name == "A3-decay" {
+			x.Mode = lifetime.Transient
+		}
+		r, err := x.Analyze(tr)
+		if err != nil {
+			t.Fatalf("%s: %v", name, err)
+		}
+		results[name] = r
+	}
+	tb, err := lifetime.ReadTableFile("../../testdata/lifetime/trial-A4-table.csv")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if _, err := a.AnalyzeTable(tb); err != nil {
+		t.Fatal(err)
+	}
+	t1, err := results["A3"].LifetimeAt(1e15)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t2, err := results["A3-decay"].LifetimeAt(1e15)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v1, err := results["A3"].ImpliedVoc(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	v2, err := results["A3-decay"].ImpliedVoc(1)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if relErr(t1, t2) > 0.01 || math.Abs(v1-v2) > 5e-4 {
+		t.Errorf("A3: flash τeff %.4g s, iVoc %.5f V; decay %.4g s, %.5f V", t1, v1, t2, v2)
+	}
+}
