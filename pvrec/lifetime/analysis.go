@@ -211,8 +211,8 @@ const (
 // Warning is a caveat about a result that the user must see; analyses return warnings as
 // data and never print them.
 type Warning struct {
-	Kind    WarningKind
-	Message string // a sentence saying what was found, where, and what it may mean
+	Kind    WarningKind // what kind of caveat, for callers that branch on it
+	Message string      // a sentence saying what was found, where, and what it may mean
 }
 
 // String returns the message.

@@ -173,3 +173,40 @@ func ExampleSeffFromLifetime() {
 	// τbulk = 0.005 s: Seff = 7.21 cm/s
 	// τbulk = +Inf s: Seff = 9.02 cm/s
 }
+
+// A processed τeff(Δn) table (docs/lifetime-csv.md) read and analysed: τeff at 1e15 cm^-3 and
+// iVoc there, with no trace behind it.
+func ExampleAnalysis_AnalyzeTable() {
+	const file = `# invented curve
+Δn (cm^-3), τeff (us)
+5e14, 655
+8e14, 652
+1e15, 650
+1.2e15, 648
+2e15, 640
+`
+	tb, err := lifetime.ReadTable(strings.NewReader(file))
+	if err != nil {
+		log.Fatal(err)
+	}
+	si, err := silicon.DefaultModelSet().At(300)
+	if err != nil {
+		log.Fatal(err)
+	}
+	wafer, err := recomb.NewBulk(si, 0, 1.5e16)
+	if err != nil {
+		log.Fatal(err)
+	}
+	a := lifetime.Analysis{Wafer: wafer, W: 180e-4, Intrinsic: recomb.NewIntrinsic()}
+	r, err := a.AnalyzeTable(tb)
+	if err != nil {
+		log.Fatal(err)
+	}
+	tau, err := r.LifetimeAt(1e15)
+	if err != nil {
+		log.Fatal(err)
+	}
+	fmt.Printf("τeff(1e15 cm^-3) = %.0f µs, iVoc there = %.1f mV, %d warnings\n", 1e6*tau, 1e3*r.IVoc[2], len(r.Warnings))
+	// Output:
+	// τeff(1e15 cm^-3) = 650 µs, iVoc there = 663.4 mV, 0 warnings
+}
