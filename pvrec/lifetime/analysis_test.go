@@ -447,3 +447,23 @@ func TestDemoTrial(t *testing.T) {
 		t.Errorf("A3: flash τeff %.4g s, iVoc %.5f V; decay %.4g s, %.5f V", t1, v1, t2, v2)
 	}
 }
+
+// TestStrings: the names of modes, units, exclusions and warnings.
+func TestStrings(t *testing.T) {
+	for _, c := range []struct{ got, want string }{
+		{lifetime.QSS.String(), "QSS"},
+		{lifetime.Transient.String(), "transient"},
+		{lifetime.Generalised.String(), "generalised"},
+		{lifetime.Mode(9).String(), "Mode(9)"},
+		{lifetime.Suns.String(), "suns"},
+		{lifetime.PhotonFlux.String(), "cm^-2 s^-1"},
+		{lifetime.LightUnit(0).String(), "LightUnit(0)"},
+		{lifetime.Exclusion{Reason: "r", Count: 2, First: 5}.String(), "2 point(s) from index 5: r"},
+		{lifetime.Exclusion{Reason: "r", Count: 1, First: 5, Line: 9}.String(), "1 point(s) from line 9: r"},
+		{lifetime.Warning{Message: "m"}.String(), "m"},
+	} {
+		if c.got != c.want {
+			t.Errorf("%q, want %q", c.got, c.want)
+		}
+	}
+}
