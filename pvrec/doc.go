@@ -17,7 +17,10 @@
 //     dose and sheet resistance.
 //   - j0: saturation-current densities of bases and diffused regions: integral forms and the
 //     numerical solver.
-//   - lifetime: lifetime samples: steady state under generation (more to come).
+//   - lifetime: lifetime samples (bulk + surfaces → τeff(Δn), steady state, iVoc(suns),
+//     implied J–V and FF, simulated traces) and the analysis of photoconductance traces and
+//     τeff tables (QSS, transient, generalised; J0s by Kane–Swanson; Seff; CSV formats in
+//     docs/lifetime-csv.md).
 //   - cell: a cell built from its parts: recombination budget, Voc, J–V curves, fill factor,
 //     efficiency, loss ranking, temperature coefficients, intrinsic limit; implied and
 //     ideal-diode voltages.

@@ -89,7 +89,7 @@ func SteadyStateExcess(g float64, tau func(dn float64) (float64, error)) (float6
 	if err != nil {
 		return 0, err
 	}
-	x, err := roots.Brent(f, lo, hi, flo, fhi, 1e-13, 300)
+	x, err := roots.Solve(f, lo, hi, flo, fhi, 1e-13, 300)
 	if err != nil {
 		return 0, fmt.Errorf("lifetime: SteadyStateExcess: g = %g cm^-3 s^-1: %w", g, err)
 	}

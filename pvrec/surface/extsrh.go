@@ -6,6 +6,7 @@ import (
 	"sort"
 
 	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
@@ -426,7 +427,7 @@ func (m ExtendedSRH) solve(s recomb.State, maxPanel float64, order int) (Result,
 			hi = math.Max(-maxBend, math.Min(maxBend, 2*hi))
 			fhi, _ = F(hi)
 		}
-		if y, err = brent(F, lo, hi, flo, fhi, 0, maxSolveIt); err != nil {
+		if y, err = roots.Solve(F, lo, hi, flo, fhi, 0, maxSolveIt); err != nil {
 			return Result{}, fmt.Errorf("surface: surface-potential solve at Qf = %g cm^-2, Δn = %g cm^-3: %w", m.Qf, s.Dn, err)
 		}
 	}

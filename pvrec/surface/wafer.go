@@ -5,6 +5,7 @@ import (
 	"math"
 
 	"github.com/pvrec/pvrec/pvrec/internal/check"
+	"github.com/pvrec/pvrec/pvrec/internal/roots"
 )
 
 // Wafer lifetimes. The fundamental mode of the decay of excess carriers in a wafer of
@@ -175,7 +176,7 @@ func fundamentalRoot(w, d, s1, s2 float64) (float64, error) {
 		return 0, fmt.Errorf("surface: fundamental-mode root not bracketed for w = %g cm, d = %g cm^2/s, s1 = %g, s2 = %g cm/s: %w",
 			w, d, s1, s2, check.ErrNoConvergence)
 	}
-	x, err := brent(f, lo, hi, flo, fhi, 0, maxAlphaIter)
+	x, err := roots.Solve(f, lo, hi, flo, fhi, 0, maxAlphaIter)
 	if err != nil {
 		return 0, fmt.Errorf("surface: fundamental mode for w = %g cm, d = %g cm^2/s, s1 = %g, s2 = %g cm/s: %w", w, d, s1, s2, err)
 	}

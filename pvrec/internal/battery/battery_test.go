@@ -15,6 +15,7 @@ import (
 
 	"github.com/pvrec/pvrec/pvrec/cell"
 	"github.com/pvrec/pvrec/pvrec/j0"
+	"github.com/pvrec/pvrec/pvrec/lifetime"
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
@@ -541,7 +542,19 @@ func fixtures(t *testing.T) []any {
 		Rs:   0.5, Jsc: 0.041,
 	}
 	device := must(cell.New(design)).(*cell.Device)
+	sample := lifetime.Sample{Wafer: nbulk, W: 180e-4, Bulk: recomb.NewIntrinsic(), Front: surface.ConstantJ0s{J0s: 15e-15}}
+	tgrid := make([]float64, 400)
+	for i := range tgrid {
+		tgrid[i] = 20e-3 * float64(i) / float64(len(tgrid)-1)
+	}
+	trace := must(sample.Simulate(lifetime.Optics{}, tgrid, nil, 3e16)).(lifetime.Trace)
+	analysis := lifetime.Analysis{Wafer: nbulk, W: 180e-4, Mode: lifetime.Transient, Intrinsic: recomb.NewIntrinsic()}
+	result := must(analysis.Analyze(trace)).(*lifetime.Result)
+	table := lifetime.Table{Dn: []float64{5e14, 8e14, 1e15, 1.2e15, 2e15}, TauEff: []float64{655e-6, 652e-6, 650e-6, 648e-6, 640e-6}}
+	optics := lifetime.Optics{FluxPerSun: lifetime.OneSunFlux, Absorbed: 0.95}
+	jv := must(sample.ImpliedJV(optics, 50)).(lifetime.JV)
 	return []any{
+		sample, trace, analysis, result, table, optics, jv, lifetime.J0sOptions{},
 		design, device, design.Base, design.Front[0],
 		si, simple, silicon.DefaultModelSet(), silicon.SimpleModelSet(),
 		silicon.Point{T: 300, Nd: 1e16, Na: 0, N: 1e16, P: 1e4}, silicon.Donor, silicon.Acceptor,

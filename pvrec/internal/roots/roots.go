@@ -16,6 +16,18 @@ import (
 // when Bracket finds no sign change within its limits.
 var ErrNoBracket = errors.New("roots: root not bracketed")
 
+// Solve is Brent for callers that treat a lost bracket like any other failure to converge:
+// it returns the root of f in [a, b] as Brent does, and reports ErrNoBracket, NaN and the
+// iteration limit alike as an error matching check.ErrNoConvergence; an error from f is
+// passed on unchanged.
+func Solve(f func(float64) (float64, error), a, b, fa, fb, xtol float64, maxIter int) (float64, error) {
+	x, err := Brent(f, a, b, fa, fb, xtol, maxIter)
+	if errors.Is(err, ErrNoBracket) && !errors.Is(err, check.ErrNoConvergence) {
+		return 0, check.NoConvergence("%v", err)
+	}
+	return x, err
+}
+
 // maxBracketEvals bounds the evaluations of Bracket, so that a step too small for the range
 // (grow = 1) cannot make it run for hours.
 const maxBracketEvals = 10000
