@@ -12,12 +12,11 @@ package battery
 import (
 	"fmt"
 	"go/ast"
-	"go/parser"
-	"go/token"
-	"os"
 	"path/filepath"
 	"sort"
 	"strings"
+
+	"github.com/pvrec/pvrec/pvrec/internal/gosrc"
 )
 
 //go:generate go run ./gen
@@ -39,24 +38,11 @@ type Entry struct {
 func List(root string) ([]Entry, error) {
 	var out []Entry
 	for _, pkg := range Packages {
-		dir := filepath.Join(root, pkg)
-		fset := token.NewFileSet()
-		ents, err := os.ReadDir(dir)
+		files, err := gosrc.Files(filepath.Join(root, pkg), pkg)
 		if err != nil {
 			return nil, err
 		}
-		for _, e := range ents {
-			name := e.Name()
-			if !strings.HasSuffix(name, ".go") || strings.HasSuffix(name, "_test.go") {
-				continue
-			}
-			f, err := parser.ParseFile(fset, filepath.Join(dir, name), nil, parser.ParseComments)
-			if err != nil {
-				return nil, err
-			}
-			if f.Name.Name != pkg || hasBuildTag(f) {
-				continue
-			}
+		for _, f := range files {
 			for _, d := range f.Decls {
 				fd, ok := d.(*ast.FuncDecl)
 				if !ok || !fd.Name.IsExported() {
@@ -114,20 +100,6 @@ func recvType(e ast.Expr) (name string, ptr, generic bool) {
 		return n, ptr, true
 	}
 	return "", ptr, false
-}
-
-func hasBuildTag(f *ast.File) bool {
-	for _, cg := range f.Comments {
-		if cg.Pos() > f.Package {
-			break
-		}
-		for _, c := range cg.List {
-			if strings.HasPrefix(c.Text, "//go:build") {
-				return true
-			}
-		}
-	}
-	return false
 }
 
 // Registry returns the Go source of the registry file for entries.

@@ -10,12 +10,12 @@ package catalogue
 import (
 	"fmt"
 	"go/ast"
-	"go/parser"
 	"go/token"
-	"os"
 	"path/filepath"
 	"sort"
 	"strings"
+
+	"github.com/pvrec/pvrec/pvrec/internal/gosrc"
 )
 
 //go:generate go run ./gen
@@ -141,26 +141,11 @@ type pkgFiles struct {
 }
 
 func parsePkg(dir, name string) (*pkgFiles, error) {
-	fset := token.NewFileSet()
-	p := &pkgFiles{Name: name}
-	ents, err := os.ReadDir(dir)
+	files, err := gosrc.Files(dir, name)
 	if err != nil {
 		return nil, err
 	}
-	for _, e := range ents {
-		n := e.Name()
-		if !strings.HasSuffix(n, ".go") || strings.HasSuffix(n, "_test.go") {
-			continue
-		}
-		f, err := parser.ParseFile(fset, filepath.Join(dir, n), nil, parser.ParseComments)
-		if err != nil {
-			return nil, err
-		}
-		if f.Name.Name == name {
-			p.Files = append(p.Files, f)
-		}
-	}
-	return p, nil
+	return &pkgFiles{Name: name, Files: files}, nil
 }
 
 // models returns the exported types of p with the role's method, with their documentation.
