@@ -393,3 +393,46 @@ func validateTable(model, vname, unit string, e, v []float64, positive bool) err
 	}
 	return nil
 }
+
+// ScaledDit is a distribution of interface states multiplied by a factor: Dit(E) = Factor ·
+// Of.Density(E), with Of's breakpoints. It is how a fit scales a Dit of a fixed shape (see
+// lifetime.FitPassivation). The zero ScaledDit is invalid (Validate reports it).
+type ScaledDit struct {
+	Of     DitDistribution // the distribution's shape
+	Factor float64         // dimensionless, finite and >= 0
+}
+
+// Density returns Factor·Of.Density(e) in cm^-2 eV^-1, or 0 for a malformed ScaledDit (see
+// Validate).
+func (m ScaledDit) Density(e float64) float64 {
+	if m.Of == nil || !(m.Factor >= 0) || m.Factor > check.MaxMagnitude {
+		return 0
+	}
+	return m.Factor * m.Of.Density(e)
+}
+
+// Breakpoints returns the breakpoints of Of.
+func (m ScaledDit) Breakpoints() []float64 {
+	if m.Of == nil {
+		return nil
+	}
+	return m.Of.Breakpoints()
+}
+
+// Validate returns an error for a nil Of, a Factor that is not finite and >= 0, or an error of
+// Of's own Validate.
+func (m ScaledDit) Validate() error {
+	if m.Of == nil {
+		return fmt.Errorf("surface: ScaledDit.Of is nil")
+	}
+	if err := check.NonNegative("surface: ScaledDit", "Factor", m.Factor, ""); err != nil {
+		return err
+	}
+	if v, ok := m.Of.(interface{ Validate() error }); ok {
+		return v.Validate()
+	}
+	return nil
+}
+
+// String returns e.g. "3.2 × ConstantDit(1e+11 cm^-2 eV^-1)".
+func (m ScaledDit) String() string { return fmt.Sprintf("%.4g × %v", m.Factor, m.Of) }
