@@ -11,9 +11,10 @@
 // gonum/plot cannot draw (a zero plot.Plot) is an error too, and figure sizes are bounded by
 // MaxSize, so that a notebook loses a figure, never its kernel.
 //
-// Write units in labels as "cm^-3": the Liberation fonts that gonum/plot uses lack the
-// superscript minus sign. SVG embeds the fonts for files that travel; SVGInline is the light form
-// the notebooks display.
+// Labels are typeset: "cm^-3" and "cm⁻³" come out as superscripts, and a label with a pair of
+// $ signs is LaTeX-style markup (`$\tau_{\rm eff}$ (s)`). SVG embeds the fonts for files that
+// travel; SVGInline is the light form the notebooks display; Figure sets sizes, panels and
+// formats.
 //
 // Nothing inside pvrec imports this package except nb; notebooks and scripts use both.
 package plots
