@@ -3,6 +3,8 @@ package plots_test
 import (
 	"fmt"
 
+	"gonum.org/v1/plot"
+
 	"github.com/pvrec/pvrec/pvrec/plots"
 )
 
@@ -25,6 +27,37 @@ func ExampleBars() {
 		plots.Bar{Label: "front: emitter", Value: 34},
 		plots.Bar{Label: "rear: contacts", Value: 10},
 		plots.Bar{Label: "base", Value: 4})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	svg, err := plots.SVGInline(p)
+	fmt.Println(err == nil && len(svg) > 0)
+	// Output: true
+}
+
+// A J0 budget by region and mechanism as stacked bars, saved as a PDF for a journal column
+// (invented values).
+func ExampleStacked() {
+	p, err := plots.Stacked(plots.Axes{XLabel: "J0 (fA/cm^2)", Legend: plots.BottomRight},
+		[]string{"front", "rear", "base"},
+		plots.BarSet{Label: "passivated", Values: []float64{20, 6, 4}},
+		plots.BarSet{Label: "contacts", Values: []float64{14, 10, 0}})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	pdf, err := plots.Figure{Panels: []*plot.Plot{p}, Preset: plots.Column}.Encode("pdf")
+	fmt.Println(err == nil && len(pdf) > 0)
+	// Output: true
+}
+
+// Two designs compared part by part as grouped bars (invented values).
+func ExampleGrouped() {
+	p, err := plots.Grouped(plots.Axes{XLabel: "J0 (fA/cm^2)", Legend: plots.BottomRight},
+		[]string{"front", "rear"},
+		plots.BarSet{Label: "design A", Values: []float64{34, 16}},
+		plots.BarSet{Label: "design B", Values: []float64{25, 19}})
 	if err != nil {
 		fmt.Println(err)
 		return

@@ -127,8 +127,8 @@ func TestBars(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	if !chart.Horizontal || chart.Len() != len(bars) {
-		t.Fatalf("want one horizontal bar chart of %d bars, got %+v", len(bars), chart)
+	if len(chart.values) != 1 || len(chart.values[0]) != len(bars) || chart.stacked {
+		t.Fatalf("want one set of %d bars, got %+v", len(bars), chart)
 	}
 	ticks := p.Y.Tick.Marker.Ticks(p.Y.Min, p.Y.Max)
 	if len(ticks) != len(bars) {
@@ -136,8 +136,8 @@ func TestBars(t *testing.T) {
 	}
 	for i, b := range bars {
 		pos := len(bars) - 1 - i
-		if ticks[pos].Label != b.Label || ticks[pos].Value != float64(pos) || chart.Value(pos) != b.Value {
-			t.Errorf("bar %d: tick %+v, value %g; want %q at %d with %g", i, ticks[pos], chart.Value(pos), b.Label, pos, b.Value)
+		if ticks[pos].Label != b.Label || ticks[pos].Value != float64(pos) || chart.values[0][pos] != b.Value {
+			t.Errorf("bar %d: tick %+v, value %g; want %q at %d with %g", i, ticks[pos], chart.values[0][pos], b.Label, pos, b.Value)
 		}
 	}
 	if p.X.Min > -0.2 || p.X.Max < 34 {
@@ -147,7 +147,8 @@ func TestBars(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	for _, w := range []string{"J0 budget", "J0 (fA/cm^2)", "front: emitter", "rear: contacts"} {
+	// The unit's exponent is typeset as a superscript, a text of its own (issue 13).
+	for _, w := range []string{"J0 budget", ">J0 (fA/cm<", ">2<", "front: emitter", "rear: contacts"} {
 		if !strings.Contains(string(svg), w) {
 			t.Errorf("SVG lacks %q", w)
 		}
@@ -305,6 +306,68 @@ func TestLinesKinds(t *testing.T) {
 			if fmt.Sprint(d) == fmt.Sprint(d0) || m == m0 {
 				t.Errorf("style %d has the dash or marker of style %d", i, i-1)
 			}
+		}
+	}
+}
+
+// TestGroupedStacked checks the structure of grouped and stacked charts (sets in category
+// order, the first category on top, stacked sums on the value axis) and their errors.
+func TestGroupedStacked(t *testing.T) {
+	cats := []string{"front", "rear", "base"}
+	sets := []BarSet{{"passivated", []float64{20, 6, 4}}, {"contacts", []float64{14, 10, 0}}}
+	p, b, err := barPlot("Stacked", Axes{XLabel: "J0 (fA/cm^2)", Legend: BottomRight}, cats, sets, true)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !b.stacked || len(b.values) != 2 || b.values[0][2] != 20 || b.values[1][0] != 0 {
+		t.Errorf("stacked bars: %+v", b)
+	}
+	// The front stack reaches 34; the axis holds it with 5 % of the span beyond.
+	if p.X.Min != 0 || math.Abs(p.X.Max-34*1.05) > 1e-12 {
+		t.Errorf("stacked value axis [%g, %g], want [0, %g]", p.X.Min, p.X.Max, 34*1.05)
+	}
+	q, err := Grouped(Axes{XLabel: "ΔJ0 (fA/cm^2)"}, cats, BarSet{"A", []float64{-3, 6, 4}}, BarSet{"B", []float64{1, 2, 3}})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if q.X.Min > -3 || q.X.Max < 6 {
+		t.Errorf("grouped value axis [%g, %g] does not hold the bars", q.X.Min, q.X.Max)
+	}
+	svg, err := SVGInline(q)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, w := range []string{">front<", ">base<", ">A<", ">B<"} {
+		if !strings.Contains(string(svg), w) {
+			t.Errorf("grouped SVG lacks %q", w)
+		}
+	}
+	for _, c := range []struct {
+		name    string
+		stacked bool
+		ax      Axes
+		cats    []string
+		sets    []BarSet
+		want    string
+	}{
+		{"no categories", false, Axes{}, nil, sets, "no categories"},
+		{"no sets", false, Axes{}, cats, nil, "no bar sets"},
+		{"empty category", false, Axes{}, []string{"a", ""}, []BarSet{{"s", []float64{1, 2}}}, "category 1 has no label"},
+		{"set label", false, Axes{}, cats, []BarSet{{"s", []float64{1, 2, 3}}, {"", []float64{1, 2, 3}}}, "set 1 has no label"},
+		{"length", false, Axes{}, cats, []BarSet{{"s", []float64{1, 2}}}, "2 values for 3 categories"},
+		{"NaN", false, Axes{}, cats, []BarSet{{"s", []float64{1, math.NaN(), 3}}}, "not finite"},
+		{"negative stack", true, Axes{}, cats, []BarSet{{"s", []float64{1, -2, 3}}}, "negative"},
+		{"overflow", true, Axes{}, cats, []BarSet{{"a", []float64{1e308, 1, 1}}, {"b", []float64{1e308, 1, 1}}}, "overflow"},
+		{"log", false, Axes{LogX: true}, cats, sets, "linear value axis"},
+		{"right label", false, Axes{RightLabel: "x"}, cats, sets, "linear value axis"},
+		{"markup", false, Axes{}, []string{`$\foo$`, "b", "c"}, sets, "category 0"},
+	} {
+		f := Grouped
+		if c.stacked {
+			f = Stacked
+		}
+		if _, err := f(c.ax, c.cats, c.sets...); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%s: error %v, want %q", c.name, err, c.want)
 		}
 	}
 }
