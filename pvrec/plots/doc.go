@@ -1,7 +1,8 @@
 // Package plots builds pvrec's figures on gonum.org/v1/plot with one house style: line plots
 // of curves versus doping, injection or depth, with optional logarithmic axes (Lines),
 // horizontal bar charts of named parts such as a J0 budget (Bars, and Grouped and Stacked for
-// several sets), and export to SVG, PDF, EPS, PNG and TeX (Figure).
+// several sets), maps of a grid with a colour bar and contour lines (HeatMap), and export to
+// SVG, PDF, EPS, PNG and TeX (Figure).
 //
 // The package holds no physics: callers compute curves with the pvrec packages and pass them
 // here as Series (or Bar values). Every builder validates its input and returns an error (never panics), for

@@ -66,3 +66,26 @@ func ExampleGrouped() {
 	fmt.Println(err == nil && len(svg) > 0)
 	// Output: true
 }
+
+// A map of a surface recombination velocity over fixed charge and interface-state density,
+// with contour lines at 10 and 100 cm/s (an invented formula in place of a pvrec model).
+func ExampleHeatMap() {
+	qf := []float64{0, 0.5e12, 1e12, 2e12, 3e12}
+	dit := []float64{1e9, 1e10, 1e11, 1e12}
+	g, err := plots.GridFunc(qf, dit, func(q, d float64) (float64, error) {
+		return d / 1e8 / (1 + q*q/1e24), nil
+	})
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	p, err := plots.HeatMap(plots.Axes{XLabel: "Qf (cm^-2)", YLabel: "Dit (cm^-2 eV^-1)", LogY: true,
+		RightLabel: "Seff (cm/s)", LogRight: true}, g, 10, 100)
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	svg, err := plots.SVGInline(p)
+	fmt.Println(err == nil && len(svg) > 0)
+	// Output: true
+}
