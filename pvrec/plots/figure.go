@@ -64,7 +64,7 @@ func (p Preset) String() string {
 }
 
 // MaxPixels is the largest number of pixels of a PNG, JPEG or TIFF image (our choice: 40
-// million, 160 MB in memory; 17 cm × 12 cm at 1200 dpi is 45 million).
+// million, 160 MB in memory; a DoubleColumn figure at 1200 dpi has 28 million).
 const MaxPixels = 40_000_000
 
 // figureBorder is the white border around a figure, pt at the design size.
@@ -255,7 +255,15 @@ func (f Figure) render(format string, embed bool) (b []byte, err error) {
 	if _, err := c.WriteTo(&buf); err != nil {
 		return nil, fmt.Errorf("plots: rendering %s: %v", format, err)
 	}
-	return buf.Bytes(), nil
+	b = buf.Bytes()
+	if format == "eps" {
+		// vgeps (v0.17) begins with "%%!PS-Adobe", which PostScript readers take for a
+		// comment rather than the "%!PS-Adobe" magic of an EPS file, and writes its
+		// %%Creator comment without the colon.
+		b = bytes.Replace(b, []byte("%%!PS-Adobe"), []byte("%!PS-Adobe"), 1)
+		b = bytes.Replace(b, []byte("%%Creator gonum"), []byte("%%Creator: gonum"), 1)
+	}
+	return b, nil
 }
 
 // draw draws the panels on dc, inside a thin white border.

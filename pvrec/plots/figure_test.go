@@ -115,14 +115,14 @@ func TestExportFormats(t *testing.T) {
 	before := *p
 	f := Figure{Panels: []*plot.Plot{p, p}, Preset: DoubleColumn}
 	for _, c := range []struct{ format, sig string }{
-		{"svg", "<svg"}, {"pdf", "%PDF-"}, {"eps", "%!PS-Adobe"}, {"png", "\x89PNG"}, {"jpg", "\xff\xd8"},
+		{"svg", "<?xml"}, {"pdf", "%PDF-"}, {"eps", "%!PS-Adobe"}, {"png", "\x89PNG"}, {"jpg", "\xff\xd8"},
 		{"tif", "II*\x00"}, {"tex", `\begin{pgfpicture}`},
 	} {
 		b, err := f.Encode(c.format)
 		if err != nil {
 			t.Fatalf("%s: %v", c.format, err)
 		}
-		if !bytes.Contains(b[:min(len(b), 200)], []byte(c.sig)) {
+		if c.format != "tex" && !bytes.HasPrefix(b, []byte(c.sig)) || !bytes.Contains(b[:min(len(b), 200)], []byte(c.sig)) {
 			t.Errorf("%s: output does not start with %q", c.format, c.sig)
 		}
 		switch c.format {

@@ -23,7 +23,9 @@ func (logTicks) Ticks(vmin, vmax float64) []plot.Tick {
 	if !(vmin > 0 && vmax > vmin) || math.IsInf(vmax, 0) {
 		return nil
 	}
-	in := func(v float64) bool { return v >= vmin*(1-1e-12) && v <= vmax*(1+1e-12) }
+	in := func(v float64) bool { // in the range, allowing for rounding; never 0 or +Inf
+		return v > 0 && !math.IsInf(v, 0) && v >= vmin*(1-1e-12) && v <= vmax*(1+1e-12)
+	}
 	lo, hi := int(math.Floor(math.Log10(vmin))), int(math.Ceil(math.Log10(vmax)))
 	var decades []int
 	for n := lo; n <= hi; n++ {
