@@ -7,15 +7,12 @@ import (
 	"unicode/utf8"
 )
 
-// Labels come in two forms. A label with a pair of unescaped $ signs is markup: a small
-// subset of LaTeX (math between $ signs with ^ and _ scripts, Greek letters and a few symbols
-// as macros, \rm, \mathrm{...}, \textrm{...} and their italic and bold kin, the spaces \, \; \!
-// \quad, and the escapes \% \$ \& \# \_ \{ \}). Any other label is plain text, drawn as
-// written, except that a caret followed by a signed integer or a braced group ("cm^-3",
-// "cm^2", "m^{1/2}"), Unicode super- and subscript digits ("cm⁻³") and Greek letters are
-// typeset as LaTeX would typeset them. toMarkup turns a plain label into the markup it
-// stands for, so that one parser lays out every label and the TeX export hands LaTeX the same
-// source.
+// Labels come in two forms (see the package doc). A label with a pair of unescaped $ signs
+// is markup, a small subset of LaTeX. Any other label is plain text, drawn as written, except
+// that a caret followed by a signed number or a braced group, "_{...}", Unicode script digits
+// and Greek letters are typeset as LaTeX would typeset them. toMarkup turns a plain label
+// into the markup it stands for, so that one parser lays out every label and the TeX export
+// hands LaTeX the same source.
 
 // An atom is one element of a parsed label: a run of characters in one face, a space, or
 // the scripts attached to the preceding atom.
@@ -584,12 +581,12 @@ func escapeText(s string) string {
 }
 
 // Unit returns the markup for a unit written the plain way, for building markup labels:
-// Unit("cm^-3") is "cm$^{-3}$", Unit("A/cm^2") is "A/cm$^{2}$", so that
+// Unit("cm^-3") is "cm$^{-3}$", Unit("A/cm^2") is "A/cm$^{2}$", Unit("µm") is "µm", so that
 //
-//	"$\\tau_{\\rm eff}$ (" + plots.Unit("s") + ")"
-//	"$\\Delta n$ (" + plots.Unit("cm^-3") + ")"
+//	`$\tau_{\rm eff}$ (` + plots.Unit("µs") + `)`
+//	`$\Delta n$ (` + plots.Unit("cm^-3") + `)`
 //
-// typeset as τ_eff (s) and Δn (cm⁻³). Plain labels ("Δn (cm^-3)") need no Unit: they are
+// typeset as τ_eff (µs) and Δn (cm⁻³). Plain labels ("Δn (cm^-3)") need no Unit: they are
 // converted in the same way when drawn.
 func Unit(u string) string {
 	return plainToMarkup(u)
