@@ -96,8 +96,9 @@ type Figure struct {
 // "jpg" or "jpeg", "tif" or "tiff", or "tex" (a pgfpicture for \input in a LaTeX document
 // that loads the pgf package: LaTeX typesets the labels in the document's fonts; the picture
 // has the preset's unscaled design size, to be scaled in LaTeX if needed). PDF and EPS carry
-// their text as glyph outlines, so that they print the same everywhere. It returns an error
-// for no panels, a nil panel, more than 26, a negative Cols or one above the number of
+// their text as glyph outlines, so that they print the same everywhere (the house text; a
+// plot made with plot.New keeps its own text styles and gonum/plot's way of writing them).
+// It returns an error for no panels, a nil panel, more than 26, a negative Cols or one above the number of
 // panels, an unknown preset, a size or DPI out of bounds, an image of more than MaxPixels,
 // an unknown format, or a panel gonum/plot cannot draw (a zero plot.Plot).
 func (f Figure) Encode(format string) ([]byte, error) {
