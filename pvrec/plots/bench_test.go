@@ -1,0 +1,37 @@
+package plots
+
+import (
+	"testing"
+
+	"gonum.org/v1/plot"
+)
+
+// BenchmarkSVGInline measures what nb.Show costs for a log–log figure of two series.
+func BenchmarkSVGInline(b *testing.B) {
+	p := demoLines(b)
+	for b.Loop() {
+		if _, err := SVGInline(p); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkHeatMapPNG measures a 31 × 25 map with contours at print size and 300 dpi.
+func BenchmarkHeatMapPNG(b *testing.B) {
+	g, err := GridFunc(logspace(1e11, 3e12, 31), logspace(1e9, 1e12, 25), func(q, d float64) (float64, error) {
+		return d / 1e8 / (1 + q*q/1e24), nil
+	})
+	if err != nil {
+		b.Fatal(err)
+	}
+	p, err := HeatMap(Axes{LogX: true, LogY: true, LogRight: true, RightLabel: "Seff (cm/s)"}, g, 10, 100)
+	if err != nil {
+		b.Fatal(err)
+	}
+	f := Figure{Panels: []*plot.Plot{p}, Preset: Column}
+	for b.Loop() {
+		if _, err := f.Encode("png"); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
