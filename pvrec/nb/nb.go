@@ -13,16 +13,85 @@ import (
 )
 
 // Show displays p inline in the notebook as a light SVG (plots.SVGInline) at the house
-// default size. Like every display function here it waits until GoNB has received the
-// content (gonbui.Sync), so that output is not lost when the cell's program ends right after.
+// notebook size, scaled to the width of the page. Like every display function here it waits
+// until GoNB has received the content (gonbui.Sync), so that output is not lost when the
+// cell's program ends right after.
 func Show(p *plot.Plot) error {
 	svg, err := plots.SVGInline(p)
 	if err != nil {
 		return fmt.Errorf("nb: %v", err)
 	}
-	gonbui.DisplaySVG(string(svg))
-	gonbui.Sync()
+	displaySVG(svg)
 	return nil
+}
+
+// ShowFigure displays a plots.Figure (several panels, a preset size) like Show.
+func ShowFigure(f plots.Figure) error {
+	svg, err := f.SVGInline()
+	if err != nil {
+		return fmt.Errorf("nb: %v", err)
+	}
+	displaySVG(svg)
+	return nil
+}
+
+// FigureHTML returns the HTML in which Show and ShowFigure display an SVG: the figure scaled
+// to the page width (at most 900 px), keeping its aspect ratio.
+func FigureHTML(svg []byte) string {
+	return `<div style="width:100%;max-width:900px">` + string(scaleSVG(svg)) + `</div>`
+}
+
+func displaySVG(svg []byte) {
+	gonbui.DisplayHTML(FigureHTML(svg))
+	gonbui.Sync()
+}
+
+// scaleSVG makes the root <svg> element take the width of its container: its width becomes
+// 100 % and its height attribute goes, the viewBox keeping the aspect ratio.
+func scaleSVG(svg []byte) []byte {
+	s := string(svg)
+	i := strings.Index(s, "<svg")
+	if i < 0 {
+		return svg
+	}
+	j := strings.Index(s[i:], ">")
+	if j < 0 {
+		return svg
+	}
+	tag := s[i : i+j]
+	if !strings.Contains(tag, "viewBox") {
+		return svg
+	}
+	tag = replaceAttr(tag, "width", "100%")
+	tag = removeAttr(tag, "height")
+	return []byte(s[:i] + tag + s[i+j:])
+}
+
+// removeAttr deletes attribute name from the tag text.
+func removeAttr(tag, name string) string {
+	k := strings.Index(tag, " "+name+`="`)
+	if k < 0 {
+		return tag
+	}
+	end := strings.Index(tag[k+len(name)+3:], `"`)
+	if end < 0 {
+		return tag
+	}
+	return tag[:k] + tag[k+len(name)+3+end+1:]
+}
+
+// replaceAttr sets the value of attribute name in the tag text (which must contain it).
+func replaceAttr(tag, name, value string) string {
+	k := strings.Index(tag, " "+name+`="`)
+	if k < 0 {
+		return tag
+	}
+	start := k + len(name) + 3
+	end := strings.Index(tag[start:], `"`)
+	if end < 0 {
+		return tag
+	}
+	return tag[:start] + value + tag[start+end:]
 }
 
 // Markdown displays a Markdown text in the notebook, e.g. a computed conclusion.

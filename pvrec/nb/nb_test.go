@@ -55,3 +55,19 @@ func TestFooterHTMLNilPointer(t *testing.T) {
 		t.Errorf("nil row accepted")
 	}
 }
+
+func TestFigureHTML(t *testing.T) {
+	svg := []byte(`<?xml version="1.0"?><svg width="453.54pt" height="283.46pt" viewBox="0 0 453.54 283.46" xmlns="http://www.w3.org/2000/svg"><g/></svg>`)
+	h := FigureHTML(svg)
+	for _, w := range []string{`width="100%"`, `viewBox="0 0 453.54 283.46"`, `max-width:900px`} {
+		if !strings.Contains(h, w) {
+			t.Errorf("figure HTML lacks %q: %s", w, h)
+		}
+	}
+	if strings.Contains(h, "height=") {
+		t.Errorf("figure HTML keeps a fixed height: %s", h)
+	}
+	if got := string(scaleSVG([]byte("<p>no svg</p>"))); got != "<p>no svg</p>" {
+		t.Errorf("non-SVG changed: %q", got)
+	}
+}
