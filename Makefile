@@ -40,15 +40,17 @@ setup-jupyter:
 		exit 1; \
 	fi
 
-# Debian's Chromium, in which make test opens every rendered notebook as a reader would.
+# Debian's Chromium, in which make test opens every rendered notebook as a reader would, and
+# the Liberation fonts the figures are laid out in (inline SVG names them; without them a
+# browser falls back to a wider face and labels overflow).
 setup-browser:
-	@if command -v chromium >/dev/null; then \
-		echo "setup: Chromium present"; \
+	@if command -v chromium >/dev/null && fc-list 2>/dev/null | grep -qi 'Liberation Sans'; then \
+		echo "setup: Chromium and the Liberation fonts present"; \
 	elif [ "$$(id -u)" = 0 ]; then \
-		echo "setup: installing Debian's chromium"; \
-		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium >/dev/null; \
+		echo "setup: installing Debian's chromium and fonts-liberation"; \
+		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium fonts-liberation fontconfig >/dev/null; \
 	else \
-		echo "setup: please install Debian's chromium (sudo apt-get install chromium), then rerun"; \
+		echo "setup: please install Debian's chromium and fonts-liberation (sudo apt-get install chromium fonts-liberation), then rerun"; \
 		exit 1; \
 	fi
 
