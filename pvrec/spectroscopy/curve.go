@@ -52,12 +52,14 @@ type Curve struct {
 // its Bulk there and the logarithm of τSRH.
 type curve struct {
 	states   []recomb.State // quasi-neutral states at the kept points, by increasing Δn
+	g        []float64      // Δn/(n p − ni,eff²) at the states, cm^3
 	y        []float64      // ln τSRH at the kept points
 	tau      []float64      // τSRH, s
 	excluded []int          // input indices left out by the subtraction
 	ratio    float64        // vth,n/vth,p at the curve's temperature
 	ve       float64        // vth,n, cm/s
 	eiv, eg  float64        // Ei − Ev and Ec − Ev of the statistics, eV (as recomb.Level)
+	vt       float64        // kT/q, V
 	bulk     *recomb.Bulk
 }
 
@@ -110,7 +112,7 @@ func prepare(c Curve, i int, vth silicon.ThermalVelocity) (*curve, error) {
 		}
 	}
 	sort.SliceStable(order, func(a, b int) bool { return c.Dn[order[a]] < c.Dn[order[b]] })
-	p := &curve{ratio: ve / vh, ve: ve, eiv: eiv, eg: eg, bulk: c.Bulk}
+	p := &curve{ratio: ve / vh, ve: ve, eiv: eiv, eg: eg, vt: m.Vt(), bulk: c.Bulk}
 	for _, k := range order {
 		s, err := c.Bulk.State(c.Dn[k])
 		if err != nil {
@@ -130,6 +132,7 @@ func prepare(c Curve, i int, vth silicon.ThermalVelocity) (*curve, error) {
 			tau /= 1 - share
 		}
 		p.states = append(p.states, s)
+		p.g = append(p.g, s.Dn/s.Excess)
 		p.tau = append(p.tau, tau)
 		p.y = append(p.y, math.Log(tau))
 	}
@@ -164,39 +167,46 @@ func (c *curve) span(ref recomb.EnergyRef) (lo, hi, mid float64) {
 
 // units fills a[i] and b[i] with the lifetimes in s at state i of unit capture time
 // constants: τ = τp0 a + τn0 b for any τn0, τp0, at the level of energy e in eV counted as
-// ref says.
+// ref says. The SRH lifetime of recomb.SRH,
 //
-// The SRH lifetime τ = Δn (τp0 (n + n1) + τn0 (p + p1))/(n p − ni,eff²) is linear in
-// (τn0, τp0), so a and b are the lifetimes with one time constant 1 s and the other
-// check.MinPositive (1e-100 s), which contributes less than rounding: (p + p1)/(n + n1) stays
-// below 1e80 even at 77 K. They are computed by recomb.SRH itself, so that the fit's model
-// is the forward model of pvrec by construction, with its n1, p1 and band-gap narrowing.
+//	τ = Δn (τp0 (n + n1) + τn0 (p + p1)) / (n p − ni,eff²),
+//
+// is linear in (τn0, τp0): a = (n + n1) Δn/(n p − ni,eff²), b = (p + p1) Δn/(n p − ni,eff²),
+// with n1 = ni,eff exp((Et − Ei)/kT) and p1 = ni,eff²/n1 at each state, the relations of
+// recomb.Level (which give the same n1, p1 for every reference); n1 and p1 cost one exp per
+// level instead of one per point. TestUnitsMatchRecomb checks them against recomb.SRH.
 func (c *curve) units(ref recomb.EnergyRef, e float64, a, b []float64) error {
-	lvl := recomb.Level{E: e, Ref: ref}
+	x, err := c.boltzmann(recomb.Level{E: e, Ref: ref})
+	if err != nil {
+		return err
+	}
 	for i, s := range c.states {
-		var err error
-		if a[i], b[i], err = unitLifetimes(lvl, s); err != nil {
-			return err
+		n1, p1 := s.NiEff*x, s.NiEff/x
+		a[i], b[i] = (s.N+n1)*c.g[i], (s.P+p1)*c.g[i]
+		if !(a[i] > 0 && b[i] > 0) || math.IsInf(a[i]+b[i], 0) {
+			return fmt.Errorf("spectroscopy: SRH lifetimes of unit time constants at %v, Δn = %g cm^-3 are not usable (%g, %g s)", recomb.Level{E: e, Ref: ref}, s.Dn, a[i], b[i])
 		}
 	}
 	return nil
 }
 
-// unitLifetimes returns the lifetimes a, b in s of level lvl at state s (see curve.units).
-func unitLifetimes(lvl recomb.Level, s recomb.State) (a, b float64, err error) {
-	ra, err := recomb.SRH{Level: lvl, TauN0: check.MinPositive, TauP0: 1}.Rate(s)
-	if err != nil {
-		return 0, 0, err
+// boltzmann returns exp((Et − Ei)/kT) of level l at the curve's temperature, or an error for
+// a level outside the gap.
+func (c *curve) boltzmann(l recomb.Level) (float64, error) {
+	var ei float64 // Et − Ei
+	switch l.Ref {
+	case recomb.FromValence:
+		ei = l.E - c.eiv
+	case recomb.FromConduction:
+		ei = c.eg - l.E - c.eiv
+	default:
+		ei = l.E
 	}
-	rb, err := recomb.SRH{Level: lvl, TauN0: 1, TauP0: check.MinPositive}.Rate(s)
-	if err != nil {
-		return 0, 0, err
+	if !(ei >= -c.eiv && ei <= c.eg-c.eiv) {
+		return 0, check.Rangef("SRH", "defect level Et − Ev", ei+c.eiv, 0, c.eg,
+			"spectroscopy: defect level %v lies outside the gap (Et − Ev = %g eV, Ec − Ev = %g eV)", l, ei+c.eiv, c.eg)
 	}
-	a, b = s.Dn/ra, s.Dn/rb
-	if !(a > 0 && b > 0) || math.IsInf(a+b, 0) {
-		return 0, 0, fmt.Errorf("spectroscopy: SRH lifetimes of unit time constants at %v, Δn = %g cm^-3 are not usable (%g, %g s)", lvl, s.Dn, a, b)
-	}
-	return a, b, nil
+	return math.Exp(ei / c.vt), nil
 }
 
 // rss returns the residual sum of squares of y_i − ln τn0 − ln(κ a_i + b_i) with ln τn0 at its

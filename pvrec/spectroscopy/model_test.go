@@ -167,3 +167,40 @@ func TestConvertLevel(t *testing.T) {
 		}
 	}
 }
+
+// The unit lifetimes computed from the relations of recomb.Level equal the lifetimes of
+// recomb.SRH itself, the forward model, with one time constant 1 s and the other 1e-100 s
+// (negligible), for every reference, with band-gap narrowing and Fermi–Dirac statistics, at
+// several temperatures and both types. Tolerance 1e-12: rounding of the two evaluations.
+func TestUnitsMatchRecomb(t *testing.T) {
+	for _, temp := range []float64{250, 300, 400} {
+		m := material(t, temp)
+		for _, dop := range [][2]float64{{0, 1e16}, {3e15, 0}, {0, 1e18}} {
+			b := bulk(t, m, dop[0], dop[1])
+			dn := logspace(1e10, 1e18, 9)
+			pc, err := prepare(Curve{Bulk: b, Dn: dn, Tau: dn}, 0, silicon.NewGreen1990ThermalVelocity())
+			if err != nil {
+				t.Fatal(err)
+			}
+			a, bb := make([]float64, len(dn)), make([]float64, len(dn))
+			for _, l := range []recomb.Level{recomb.AboveEv(0.05), recomb.AboveEv(0.38), recomb.BelowEc(0.26), recomb.BelowEc(0.02), recomb.FromEi(-0.3), recomb.FromEi(0.1)} {
+				if err := pc.units(l.Ref, l.E, a, bb); err != nil {
+					t.Fatal(err)
+				}
+				for i, s := range pc.states {
+					ta, err := recomb.Lifetime(recomb.SRH{Level: l, TauN0: 1e-100, TauP0: 1}, s)
+					if err != nil {
+						t.Fatal(err)
+					}
+					tb, err := recomb.Lifetime(recomb.SRH{Level: l, TauN0: 1, TauP0: 1e-100}, s)
+					if err != nil {
+						t.Fatal(err)
+					}
+					if !near(a[i], ta, 1e-12) || !near(bb[i], tb, 1e-12) {
+						t.Errorf("T = %g K, Nd, Na = %g, level %v, Δn = %g: a, b = %g, %g s; recomb.SRH gives %g, %g s", temp, dop, l, s.Dn, a[i], bb[i], ta, tb)
+					}
+				}
+			}
+		}
+	}
+}

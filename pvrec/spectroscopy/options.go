@@ -26,8 +26,8 @@ type Options struct {
 	// τp0/τn0 = k vth,n/vth,p, and τn0 to σn·Nt; the zero value means
 	// silicon.NewGreen1990ThermalVelocity().
 	VTh silicon.ThermalVelocity
-	// Starts are starting points added to the default ones of Fit (the best point of each
-	// half of the gap on its profile grid); each must lie in the gap of every curve and in
+	// Starts are starting points added to the default ones of Fit (the local minima of its
+	// profile grid in each half of the gap); each must lie in the gap of every curve and in
 	// [KMin, KMax] (a range error otherwise).
 	Starts []Start
 	// EtPoints and KPoints are the grid of SolutionSurface: Et over the gap and log10 k over
@@ -57,14 +57,15 @@ const (
 	defaultGrid     = 200
 	limitKMin       = 1e-10
 	limitKMax       = 1e10
-	fitEtPoints     = 81 // profile grid of Fit over the gap
-	fitKPoints      = 41 // k grid of each profile point: a quarter decade over the default range
+	fitEtPoints     = 161 // profile grid of Fit over the gap (7 meV steps in silicon at 300 K)
+	fitKPoints      = 41  // k grid of each profile point: a quarter decade over the default range
+	maxStarts       = 6   // local minima of the profile polished per half of the gap
 	edgeInset       = 1e-6
-	profileTolLnK   = 1e-4 // golden-section tolerance of the best ln k at one Et
-	intervalTolEt   = 1e-4 // tolerance of the ends of the profile-likelihood region, eV
-	determinedEt    = 0.05 // Et is "determined" if the 95 % interval is at most ±0.05 eV
+	profileTolLnK   = 1e-4              // golden-section tolerance of the best ln k at one Et
+	intervalTolEt   = 1e-4              // tolerance of the ends of the profile-likelihood region, eV
+	determinedEt    = 0.05              // Et is "determined" if the 95 % interval is at most ±0.05 eV
 	determinedLnK   = 2.302585092994046 // k is "determined" if its 95 % interval is at most ×/÷ 10
-	dwThreshold     = 1.0  // Durbin–Watson statistic below which residuals are systematic
+	dwThreshold     = 1.0               // Durbin–Watson statistic below which residuals are systematic
 	confidenceLevel = 0.95
 	fTestLevel      = 0.99
 )
