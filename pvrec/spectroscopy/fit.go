@@ -132,7 +132,7 @@ func (r Result) Reliable() bool { return r.Flags&^PointsExcluded == 0 }
 
 // SRH returns the fitted level as the recomb.SRH model of curve i (its τn0 and τp0), to
 // evaluate the fitted curve with recomb.Bulk.Lifetimes. It returns an error for a Result not
-// made by Fit or an index out of range.
+// made by Fit, an index out of range, or time constants that are not finite and > 0.
 func (r Result) SRH(i int) (recomb.SRH, error) {
 	if r.Level.Ref == 0 {
 		return recomb.SRH{}, errors.New("spectroscopy: Result.SRH: the Result is not from Fit")
@@ -140,7 +140,14 @@ func (r Result) SRH(i int) (recomb.SRH, error) {
 	if i < 0 || i >= len(r.Samples) {
 		return recomb.SRH{}, fmt.Errorf("spectroscopy: Result.SRH: curve index %d not in [0, %d)", i, len(r.Samples))
 	}
-	return recomb.SRH{Level: r.Level, TauN0: r.Samples[i].TauN0, TauP0: r.Samples[i].TauP0}, nil
+	m := recomb.SRH{Level: r.Level, TauN0: r.Samples[i].TauN0, TauP0: r.Samples[i].TauP0}
+	if err := check.Positive("spectroscopy: Result.SRH", "TauN0", m.TauN0, "s"); err != nil {
+		return recomb.SRH{}, err
+	}
+	if err := check.Positive("spectroscopy: Result.SRH", "TauP0", m.TauP0, "s"); err != nil {
+		return recomb.SRH{}, err
+	}
+	return m, nil
 }
 
 // Fit fits a single Shockley–Read–Hall level to the lifetime curves by least squares on

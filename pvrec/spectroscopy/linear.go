@@ -66,11 +66,7 @@ func Linearise(c Curve, vth silicon.ThermalVelocity) (Line, error) {
 		Excluded: append([]int(nil), pc.excluded...), c: pc}
 	w := make([]float64, n)
 	for i, s := range pc.states {
-		if l.PType {
-			l.X[i] = s.N / s.P
-		} else {
-			l.X[i] = s.P / s.N
-		}
+		l.X[i] = ratioX(s)
 		w[i] = 1 / (l.Tau[i] * l.Tau[i])
 	}
 	l.Intercept, l.Slope = stat.LinearRegression(l.X, l.Tau, w, false)
@@ -124,7 +120,8 @@ func Linearise(c Curve, vth silicon.ThermalVelocity) (Line, error) {
 }
 
 // At returns the SRH level lvl with the capture time constants τn0, τp0 (s) whose lifetime
-// equals the line at the first and the last point of the curve, and its k = σn/σp, so that
+// equals the line (its Intercept and Slope) at the first and the last point of the curve, and
+// its k = σn/σp, so that
 // sweeping lvl over the gap traces the solution curve k(Et) of the line (compare Locus).
 // The lifetimes are those of recomb.SRH at the curve's states, so band-gap narrowing enters.
 // It returns an error for a Line not made by Linearise or an invalid level, and a range error
@@ -144,8 +141,8 @@ func (l Line) At(lvl recomb.Level) (srh recomb.SRH, k float64, err error) {
 		return recomb.SRH{}, 0, err
 	}
 	a0, a1, b0, b1 := a[0], a[1], b[0], b[1]
-	t0 := l.Intercept + l.Slope*l.X[0]
-	t1 := l.Intercept + l.Slope*l.X[len(l.X)-1]
+	t0 := l.Intercept + l.Slope*ratioX(ends.states[0])
+	t1 := l.Intercept + l.Slope*ratioX(ends.states[1])
 	det := a0*b1 - a1*b0
 	noSolution := func(tn, tp float64) error {
 		return check.Rangef("Line.At", "defect level", lvl.E, math.NaN(), math.NaN(),
@@ -165,4 +162,13 @@ func (l Line) At(lvl recomb.Level) (srh recomb.SRH, k float64, err error) {
 		return recomb.SRH{}, 0, err
 	}
 	return srh, k, nil
+}
+
+// ratioX returns the minority-to-majority density ratio X of state s: n/p in p-type, p/n in
+// n-type.
+func ratioX(s recomb.State) float64 {
+	if s.PType() {
+		return s.N / s.P
+	}
+	return s.P / s.N
 }

@@ -18,6 +18,7 @@ import (
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/spectroscopy"
 	"github.com/pvrec/pvrec/pvrec/surface"
 )
 
@@ -541,7 +542,13 @@ func fixtures(t *testing.T) []any {
 		Rs:   0.5, Jsc: 0.041,
 	}
 	device := must(cell.New(design)).(*cell.Device)
+	specDn := []float64{1e13, 3e13, 1e14, 3e14, 1e15, 3e15, 1e16, 3e16}
+	specCurve := spectroscopy.Curve{Bulk: pbulk, Dn: specDn, Tau: must(pbulk.Lifetimes(recomb.IronBoronPair(1e12), specDn)).([]float64)}
+	specOpt := spectroscopy.Options{Ref: recomb.FromConduction, EtPoints: 20, KPoints: 20, Starts: []spectroscopy.Start{{Et: 0.3, K: 2}}}
+	specResult := must(spectroscopy.Fit([]spectroscopy.Curve{specCurve}, specOpt)).(spectroscopy.Result)
+	specLine := must(spectroscopy.Linearise(specCurve, silicon.NewGreen1990ThermalVelocity())).(spectroscopy.Line)
 	return []any{
+		specCurve, []spectroscopy.Curve{specCurve}, specOpt, specResult, specLine, spectroscopy.Start{Et: 0.3, K: 2},
 		design, device, design.Base, design.Front[0],
 		si, simple, silicon.DefaultModelSet(), silicon.SimpleModelSet(),
 		silicon.Point{T: 300, Nd: 1e16, Na: 0, N: 1e16, P: 1e4}, silicon.Donor, silicon.Acceptor,
