@@ -40,16 +40,20 @@
 //     Likelihood-ratio intervals, the F test and the covariance s² (JᵀJ)⁻¹: common practice
 //     (no source); quantiles from gonum/stat/distuv, differences from gonum/diff/fd.
 //
-// What the data determine. In p-type silicon a level in the upper half with n1 and its mirror
-// in the lower half with p1 = (τp0/τn0) n1 give the same lifetime curve at every doping (with
-// n0 ≪ p0), so curves of several p-type dopings at one temperature fix k and |Et − Ei| but not
-// the half: Fit flags BranchesNotSeparated. Curves at several temperatures (or of both
-// types) separate the halves. A deep level (n1, p1 ≪ the majority density) fixes only k.
+// What the data determine. At one temperature, a level in the upper half of the gap with n1
+// (its p1 negligible) and the level in the lower half with p1' = (τp0/τn0) n1 (its n1'
+// negligible), with the same τn0 and τp0, give the same lifetime at every injection and
+// every doping of either type: in τ (n0 + p0 + Δn) = τp0 (n + n1) + τn0 (p + p1) both add
+// τp0 n1 to the same terms (derived here). So curves at one temperature fix k and the pair of
+// mirror levels but not the half, and Fit flags BranchesNotSeparated; curves at several
+// temperatures separate the halves, since n1 and p1' change differently with T. A deep level
+// (n1, p1 ≪ the majority density) fixes only k.
 //
 // The tests check synthetic round trips (curves from recomb's catalogue levels and invented
-// ones at several dopings and temperatures, with invented seeded noise), the SRH closed forms
-// at low and high injection, the exact mirror symmetry above, the linear form against the
-// closed form, and the flags on curves that no single level describes.
+// ones at several dopings and temperatures, with invented seeded noise), the coverage of the
+// 95 % intervals, the SRH closed forms at low and high injection, the mirror symmetry above,
+// the linear form against its closed form, the solution surface against the linear form, and
+// the flags on curves that no single level describes.
 //
 // Units: eV, cm^-3, s, cm/s, cm^-1 (σn·Nt); k and X are dimensionless.
 package spectroscopy

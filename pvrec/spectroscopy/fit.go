@@ -162,10 +162,11 @@ func (r Result) SRH(i int) (recomb.SRH, error) {
 // ln τn0 plus a function of the data, so each τn0 has a closed-form optimum and the fit is a
 // search over (Et, ln k) only. Default starting points: the local minima (the six lowest in
 // each half of the gap, below and above Ei) of the profile cost over a grid of 161 energies
-// spanning the gap, each minimised over 41 values of ln k spanning [KMin, KMax] and refined by
-// golden-section search; Options.Starts are added. Each start is polished by the Nelder–Mead simplex method (J. A. Nelder and R. Mead,
-// Comput. J. 7, 308 (1965)) within its half; the best half gives
-// the Result, the other its Alternative. The search is deterministic (no random numbers).
+// spanning the gap, each minimised over 41 values of ln k spanning [KMin, KMax] and refined
+// by golden-section search; Options.Starts are added. Each start is polished within its half
+// by the Nelder–Mead simplex method (J. A. Nelder and R. Mead, Comput. J. 7, 308 (1965));
+// the best half gives the Result, the other its Alternative. The search is deterministic
+// (no random numbers).
 //
 // Uncertainty: Scatter s = max(rms, NoiseFloor); the covariance s² (JᵀJ)⁻¹ with the Jacobian J
 // of the residuals in (Et, ln k, ln τn0 per curve) by central differences (gonum/diff/fd)
@@ -174,9 +175,10 @@ func (r Result) SRH(i int) (recomb.SRH, error) {
 // dependence on Et. Flags and Reasons say when the branches are not separated, Et or k is not
 // determined, a curve is not fitted by one level, or the curves share no level.
 //
-// It returns an error for no curves, a curve that prepare refuses (fewer than MinPoints
-// points, NaN, infinite or non-positive Dn or Tau, a nil Bulk, too many points removed by the
-// subtraction), invalid Options (a starting point outside the gap or k range is a range
+// It returns an error for no curves, a bad curve (a nil or zero Bulk, Dn and Tau of
+// different lengths, fewer than MinPoints points or MinPoints − 1 distinct Δn, a Dn or Tau
+// that is NaN, infinite or <= 0, a Dn above recomb.MaxExcess, too many points removed by the
+// subtraction, a temperature outside the thermal-velocity window), invalid Options (a starting point outside the gap or k range is a range
 // error, errors.Is(err, pvrec.ErrOutOfRange)), an error of the recombination models, or an
 // optimisation that does not converge (errors.Is(err, pvrec.ErrNoConvergence)).
 func Fit(curves []Curve, opt Options) (Result, error) {
@@ -259,6 +261,7 @@ func Fit(curves []Curve, opt Options) (Result, error) {
 		return Result{}, err
 	}
 	lnT := make([]float64, len(p.curves))
+	var excluded, poor []string // per-curve notes for the flags
 	for j, c := range p.curves {
 		kappa := r.K * c.ratio
 		cost, lt := rss(c.y, w.a[j], w.b[j], kappa)
@@ -274,20 +277,27 @@ func Fit(curves []Curve, opt Options) (Result, error) {
 		if err := check.Result("spectroscopy: Fit", fmt.Sprintf("τn0 of curve %d", j), tn, "s"); err != nil {
 			return Result{}, err
 		}
-		if len(c.excluded) > 0 && r.Flags&PointsExcluded == 0 {
-			r.Flags |= PointsExcluded
-			r.Reasons = append(r.Reasons, fmt.Sprintf("the subtraction left out %d point(s) of curve %d (and maybe others; see Samples[i].Excluded)", len(c.excluded), j))
+		if len(c.excluded) > 0 {
+			excluded = append(excluded, fmt.Sprintf("%d of curve %d", len(c.excluded), j))
 		}
-		if smp.DurbinWatson < dwThreshold && smp.RMS > NoiseFloor && r.Flags&PoorFit == 0 {
-			r.Flags |= PoorFit
-			r.Reasons = append(r.Reasons, fmt.Sprintf("the residuals of curve %d are systematic (Durbin–Watson %.2f, rms %.3g): one level does not describe its shape", j, smp.DurbinWatson, smp.RMS))
+		if smp.DurbinWatson < dwThreshold && smp.RMS > NoiseFloor {
+			poor = append(poor, fmt.Sprintf("curve %d (Durbin–Watson %.2f, rms %.3g)", j, smp.DurbinWatson, smp.RMS))
 		}
 		r.Samples = append(r.Samples, smp)
 	}
+	if len(excluded) > 0 {
+		r.Flags |= PointsExcluded
+		r.Reasons = append(r.Reasons, fmt.Sprintf("the subtraction left out points (%s; see Samples[i].Excluded)", strings.Join(excluded, ", ")))
+	}
+	if len(poor) > 0 {
+		r.Flags |= PoorFit
+		r.Reasons = append(r.Reasons, fmt.Sprintf("the residuals are systematic in %s: one level does not describe the shape", strings.Join(poor, ", ")))
+	}
 
 	// Covariance from the Jacobian.
-	eFree := best.e-p.lo > 1e-3 && p.hi-best.e > 1e-3
-	kFree := best.lnk-p.lnKMin > 1e-3 && p.lnKMax-best.lnk > 1e-3
+	eEdge := !(best.e-p.lo > 1e-3 && p.hi-best.e > 1e-3)
+	kEdge := !(best.lnk-p.lnKMin > 1e-3 && p.lnKMax-best.lnk > 1e-3)
+	eFree, kFree := !eEdge, !kEdge
 	cov, err := p.covariance(w, best.e, best.lnk, lnT, &eFree, &kFree, r.Scatter)
 	if err != nil {
 		return Result{}, err
@@ -346,21 +356,24 @@ func Fit(curves []Curve, opt Options) (Result, error) {
 			formatRegion(r.Region), refName(p.ref), p.mid, alt.e, r.Alternative.K, r.Alternative.Chi2))
 	}
 	switch {
-	case !eFree:
+	case eEdge:
 		r.Flags |= EtNotDetermined
 		r.Reasons = append(r.Reasons, fmt.Sprintf("Et = %.3f eV (%s) lies at a band edge: only a bound", r.Et, refName(p.ref)))
+	case !eFree:
+		r.Flags |= EtNotDetermined
+		r.Reasons = append(r.Reasons, fmt.Sprintf("the lifetimes do not depend on Et near Et = %.3f eV (%s; the Jacobian does not resolve it): Et is not determined", r.Et, refName(p.ref)))
 	case sameSide:
 		r.Flags |= EtNotDetermined
 		r.Reasons = append(r.Reasons, fmt.Sprintf("the 95 %% region of Et falls apart into separate intervals in the same half of the gap (%s eV, %s): the data do not tell them apart", formatRegion(r.Region), refName(p.ref)))
-	case cov == nil || r.EtLow <= p.lo || r.EtHigh >= p.hi || (r.EtHigh-r.EtLow)/2 > determinedEt:
+	case r.EtLow <= p.lo || r.EtHigh >= p.hi || (r.EtHigh-r.EtLow)/2 > determinedEt:
 		r.Flags |= EtNotDetermined
 		r.Reasons = append(r.Reasons, fmt.Sprintf("the 95 %% interval of Et is [%.3f, %.3f] eV (%s): Et is not determined to ±%g eV", r.EtLow, r.EtHigh, refName(p.ref), determinedEt))
 	}
 	switch {
-	case !kFree:
+	case kEdge:
 		r.Flags |= KNotDetermined
 		r.Reasons = append(r.Reasons, fmt.Sprintf("k = %.3g lies at an end of the range searched [%g, %g]: only a bound", r.K, p.kMin, p.kMax))
-	case cov == nil || z*r.LnKErr > determinedLnK:
+	case !kFree || z*r.LnKErr > determinedLnK:
 		r.Flags |= KNotDetermined
 		r.Reasons = append(r.Reasons, fmt.Sprintf("the 95 %% interval of k is [%.3g, %.3g]: k is not determined to a factor 10", r.KLow, r.KHigh))
 	}

@@ -16,8 +16,9 @@ import (
 // minority to the majority carrier density, X = n/p in p-type and X = p/n in n-type
 // silicon, which for a single level is a straight line (J. D. Murphy, K. Bothe, R. Krain,
 // V. V. Voronkov and R. J. Falster, J. Appl. Phys. 111, 113709 (2012), for p-type; the
-// n-type form follows by exchanging the carriers). From the SRH lifetime with n0 ≪ p0 and
-// ni,eff independent of injection (derived here),
+// n-type form follows by exchanging the carriers). From the SRH lifetime with the minority
+// equilibrium density negligible (n0 ≪ p0 in p-type, p0 ≪ n0 in n-type) and ni,eff
+// independent of injection (derived here),
 //
 //	p-type: τ = τn0 (1 + p1/p0) + τp0 n1/p0 + X [τp0 (1 − n1/p0) − τn0 p1/p0],
 //	n-type: τ = τp0 (1 + n1/n0) + τn0 p1/n0 + X [τn0 (1 − p1/n0) − τp0 n1/n0],

@@ -80,11 +80,11 @@ func TestRSSExact(t *testing.T) {
 	}
 }
 
-// The mirror symmetry of p-type SRH (derived in the package doc): a level in the upper half
-// with n1 and the level in the lower half with p1' = κ n1 (κ = τp0/τn0), with the same τn0 and
-// τp0, give the same lifetime at every doping and injection, up to corrections of order
-// p1/p0, n1'/p0 and n0/p0 (below 1e-8 here). The reason Fit flags BranchesNotSeparated for
-// p-type curves at one temperature.
+// The mirror symmetry of SRH at one temperature (derived in the package doc): a level in the
+// upper half with n1 and the level in the lower half with p1' = κ n1 (κ = τp0/τn0), with the
+// same τn0 and τp0, give the same lifetime at every doping of either type and every
+// injection, up to the neglected τn0 p1 and τp0 n1' against τ (n0 + p0 + Δn) (below 1e-8
+// here). The reason Fit flags BranchesNotSeparated for curves at one temperature.
 func TestMirrorSymmetry(t *testing.T) {
 	m := simple(t)
 	const tn, tp = 2e-5, 6e-5
@@ -93,8 +93,8 @@ func TestMirrorSymmetry(t *testing.T) {
 	mirror := -m.Vt() * math.Log(tp/tn*n1/m.Ni()) // p1' = ni exp(−e'/kT) = κ n1
 	up := recomb.SRH{Level: recomb.FromEi(e), TauN0: tn, TauP0: tp}
 	down := recomb.SRH{Level: recomb.FromEi(mirror), TauN0: tn, TauP0: tp}
-	for _, na := range []float64{1e15, 1e16, 1e17} {
-		b := bulk(t, m, 0, na)
+	for _, dop := range [][2]float64{{0, 1e15}, {0, 1e16}, {0, 1e17}, {1e15, 0}, {1e17, 0}} {
+		b := bulk(t, m, dop[0], dop[1])
 		for _, dn := range logspace(1e12, 1e17, 11) {
 			tu, err := b.Lifetime(up, dn)
 			if err != nil {
@@ -105,7 +105,7 @@ func TestMirrorSymmetry(t *testing.T) {
 				t.Fatal(err)
 			}
 			if !near(td, tu, 1e-8) {
-				t.Errorf("Na = %g, Δn = %g: upper level τ = %g s, mirror (Et − Ei = %.4f eV) τ = %g s", na, dn, tu, mirror, td)
+				t.Errorf("Nd, Na = %g, Δn = %g: upper level τ = %g s, mirror (Et − Ei = %.4f eV) τ = %g s", dop, dn, tu, mirror, td)
 			}
 		}
 	}

@@ -31,7 +31,7 @@ type Options struct {
 	// [KMin, KMax] (a range error otherwise).
 	Starts []Start
 	// EtPoints and KPoints are the grid of SolutionSurface: Et over the gap and log10 k over
-	// [KMin, KMax], both ends included; 0 means 200 and 200, at most MaxGridPoints each.
+	// [KMin, KMax], both ends included; 0 means 200 and 200, otherwise 2 to MaxGridPoints.
 	EtPoints, KPoints int
 	// Workers is the number of goroutines of the grid evaluations (package sweep); <= 0 means
 	// all cores. Results do not depend on it.
@@ -46,7 +46,7 @@ type Start struct {
 }
 
 // MaxGridPoints is the largest number of grid points along either axis of SolutionSurface.
-const MaxGridPoints = 2000
+const MaxGridPoints = 1000
 
 // Defaults of Options (our choices, common practice, no source): the k range covers the
 // capture-cross-section ratios of the levels in recomb's catalogue (about 1.7 and 700) with
