@@ -19,6 +19,7 @@ import (
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/spectroscopy"
 	"github.com/pvrec/pvrec/pvrec/surface"
 )
 
@@ -553,8 +554,14 @@ func fixtures(t *testing.T) []any {
 	table := lifetime.Table{Dn: []float64{5e14, 8e14, 1e15, 1.2e15, 2e15}, TauEff: []float64{655e-6, 652e-6, 650e-6, 648e-6, 640e-6}}
 	optics := lifetime.Optics{FluxPerSun: lifetime.OneSunFlux, Absorbed: 0.95}
 	jv := must(sample.ImpliedJV(optics, 50)).(lifetime.JV)
+	specDn := []float64{1e13, 3e13, 1e14, 3e14, 1e15, 3e15, 1e16, 3e16}
+	specCurve := spectroscopy.Curve{Bulk: pbulk, Dn: specDn, Tau: must(pbulk.Lifetimes(recomb.IronBoronPair(1e12), specDn)).([]float64)}
+	specOpt := spectroscopy.Options{Ref: recomb.FromConduction, EtPoints: 20, KPoints: 20, Starts: []spectroscopy.Start{{Et: 0.3, K: 2}}}
+	specResult := must(spectroscopy.Fit([]spectroscopy.Curve{specCurve}, specOpt)).(spectroscopy.Result)
+	specLine := must(spectroscopy.Linearise(specCurve, silicon.NewGreen1990ThermalVelocity())).(spectroscopy.Line)
 	return []any{
 		sample, trace, analysis, result, table, optics, jv, lifetime.J0sOptions{},
+		specCurve, []spectroscopy.Curve{specCurve}, specOpt, specResult, specLine, spectroscopy.Start{Et: 0.3, K: 2},
 		design, device, design.Base, design.Front[0],
 		si, simple, silicon.DefaultModelSet(), silicon.SimpleModelSet(),
 		silicon.Point{T: 300, Nd: 1e16, Na: 0, N: 1e16, P: 1e4}, silicon.Donor, silicon.Acceptor,

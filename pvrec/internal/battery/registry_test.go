@@ -10,6 +10,7 @@ import (
 	"github.com/pvrec/pvrec/pvrec/profile"
 	"github.com/pvrec/pvrec/pvrec/recomb"
 	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/spectroscopy"
 	"github.com/pvrec/pvrec/pvrec/surface"
 )
 
@@ -299,6 +300,14 @@ var registry = []entry{
 	{Entry: Entry{Pkg: "silicon", Expr: "(silicon.ThermalVelocity).At", Name: "silicon.ThermalVelocity.At", AllowInf: false}, fn: (silicon.ThermalVelocity).At},
 	{Entry: Entry{Pkg: "silicon", Expr: "(silicon.ThermalVelocity).String", Name: "silicon.ThermalVelocity.String", AllowInf: false}, fn: (silicon.ThermalVelocity).String},
 	{Entry: Entry{Pkg: "silicon", Expr: "silicon.ThermalVoltage", Name: "silicon.ThermalVoltage", AllowInf: false}, fn: silicon.ThermalVoltage},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "spectroscopy.ConvertLevel", Name: "spectroscopy.ConvertLevel", AllowInf: false}, fn: spectroscopy.ConvertLevel},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "spectroscopy.Fit", Name: "spectroscopy.Fit", AllowInf: false}, fn: spectroscopy.Fit},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "(spectroscopy.Flags).String", Name: "spectroscopy.Flags.String", AllowInf: false}, fn: (spectroscopy.Flags).String},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "(spectroscopy.Line).At", Name: "spectroscopy.Line.At", AllowInf: false}, fn: (spectroscopy.Line).At},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "spectroscopy.Linearise", Name: "spectroscopy.Linearise", AllowInf: false}, fn: spectroscopy.Linearise},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "(spectroscopy.Result).Reliable", Name: "spectroscopy.Result.Reliable", AllowInf: false}, fn: (spectroscopy.Result).Reliable},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "(spectroscopy.Result).SRH", Name: "spectroscopy.Result.SRH", AllowInf: false}, fn: (spectroscopy.Result).SRH},
+	{Entry: Entry{Pkg: "spectroscopy", Expr: "spectroscopy.SolutionSurface", Name: "spectroscopy.SolutionSurface", AllowInf: false}, fn: spectroscopy.SolutionSurface},
 	{Entry: Entry{Pkg: "surface", Expr: "(surface.ConstantDit).Breakpoints", Name: "surface.ConstantDit.Breakpoints", AllowInf: false}, fn: (surface.ConstantDit).Breakpoints},
 	{Entry: Entry{Pkg: "surface", Expr: "(surface.ConstantDit).Density", Name: "surface.ConstantDit.Density", AllowInf: false}, fn: (surface.ConstantDit).Density},
 	{Entry: Entry{Pkg: "surface", Expr: "(surface.ConstantDit).String", Name: "surface.ConstantDit.String", AllowInf: false}, fn: (surface.ConstantDit).String},
