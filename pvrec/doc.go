@@ -20,7 +20,9 @@
 //   - lifetime: lifetime samples (bulk + surfaces → τeff(Δn), steady state, iVoc(suns),
 //     implied J–V and FF, simulated traces) and the analysis of photoconductance traces and
 //     τeff tables (QSS, transient, generalised; J0s by Kane–Swanson; Seff; CSV formats in
-//     docs/lifetime-csv.md).
+//     docs/lifetime-csv.md), and the fit of an interface's Qf and Dit to τeff (FitPassivation).
+//   - spectroscopy: injection- and temperature-dependent lifetime spectroscopy of one SRH
+//     level (fit with intervals and ambiguity flags, solution surface, linearised form).
 //   - cell: a cell built from its parts: recombination budget, Voc, J–V curves, fill factor,
 //     efficiency, loss ranking, temperature coefficients, intrinsic limit; implied and
 //     ideal-diode voltages.

@@ -222,6 +222,10 @@ func FitPassivation(s Sample, dn, tau []float64, o PassivationOptions) (Passivat
 		fit.Reliable = false
 		fit.Warnings = append(fit.Warnings, fmt.Sprintf("a fixed charge of the other sign fits nearly as well (cost ratio %.3g < %g): the sign of Qf is not determined by these data", fit.OtherSignRatio, SignAmbiguity))
 	}
+	if math.Abs(fit.Qf) > 0.99*surface.MaxFixedCharge || math.Abs(p[1]) > 0.99*50 {
+		fit.Reliable = false
+		fit.Warnings = append(fit.Warnings, fmt.Sprintf("the fit ran to the edge of the searched range (Qf = %.3g cm^-2, Dit factor %.3g): the data set only a combination of the parameters, such as Dit/Qf² for a strongly accumulated surface", fit.Qf, fit.DitFactor))
+	}
 	if err := fit.uncertainty(p, residuals, len(xs), np); err != nil {
 		fit.Reliable = false
 		fit.Warnings = append(fit.Warnings, err.Error())
