@@ -9,6 +9,8 @@ import (
 	"os"
 	"strconv"
 	"strings"
+
+	"github.com/pvrec/pvrec/pvrec/internal/csvtext"
 )
 
 // The two CSV formats of the package, a time-resolved trace and a processed τeff(Δn) table,
@@ -113,7 +115,7 @@ func readDocument(r io.Reader, settings bool, want string) (document, error) {
 			}
 			d.headerLine = line
 			for i, f := range fields {
-				name, unit, ok := splitUnit(f)
+				name, unit, ok := csvtext.SplitUnit(f)
 				if !ok || unit == "" {
 					return document{}, fmt.Errorf("lifetime: line %d: header column %d %q has no unit in parentheses, want the header %s", line, i+1, strings.TrimSpace(f), want)
 				}
@@ -167,16 +169,6 @@ func (d *document) setting(line int, key, value string) error {
 	return nil
 }
 
-// splitUnit splits "name (unit)" into name and unit; ok is false without parentheses.
-func splitUnit(f string) (name, unit string, ok bool) {
-	f = strings.TrimSpace(f)
-	i := strings.IndexByte(f, '(')
-	if i < 0 || !strings.HasSuffix(f, ")") {
-		return f, "", false
-	}
-	return strings.TrimSpace(f[:i]), strings.TrimSpace(f[i+1 : len(f)-1]), true
-}
-
 // errNotDecimal is wrapped by parseDecimal for a field that is not a decimal number.
 var errNotDecimal = errors.New("not a decimal number")
 
@@ -185,34 +177,7 @@ var errNotDecimal = errors.New("not a decimal number")
 // hexadecimal floats, "Inf", "NaN", digit separators — and values beyond the float64 range.
 func parseDecimal(f string) (float64, error) {
 	s := strings.TrimSpace(f)
-	i := 0
-	if i < len(s) && (s[i] == '+' || s[i] == '-') {
-		i++
-	}
-	digits := 0
-	for i < len(s) && s[i] >= '0' && s[i] <= '9' {
-		i, digits = i+1, digits+1
-	}
-	if i < len(s) && s[i] == '.' {
-		i++
-		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
-			i, digits = i+1, digits+1
-		}
-	}
-	if digits > 0 && i < len(s) && (s[i] == 'e' || s[i] == 'E') {
-		i++
-		if i < len(s) && (s[i] == '+' || s[i] == '-') {
-			i++
-		}
-		exp := 0
-		for i < len(s) && s[i] >= '0' && s[i] <= '9' {
-			i, exp = i+1, exp+1
-		}
-		if exp == 0 {
-			digits = 0
-		}
-	}
-	if digits == 0 || i != len(s) {
+	if !csvtext.PlainDecimal(s) {
 		return 0, fmt.Errorf("%q: %w", s, errNotDecimal)
 	}
 	v, err := strconv.ParseFloat(s, 64)

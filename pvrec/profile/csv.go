@@ -11,6 +11,7 @@ import (
 	"strings"
 	"unicode/utf8"
 
+	"github.com/pvrec/pvrec/pvrec/internal/csvtext"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -190,7 +191,7 @@ func parseHeader(line int, fields []string) (string, float64, error) {
 	}
 	var unit string
 	for i, want := range [2]string{"depth", "density"} {
-		name, u, ok := splitUnit(fields[i])
+		name, u, ok := csvtext.SplitUnit(fields[i])
 		if !strings.EqualFold(name, want) {
 			return "", 0, fmt.Errorf("profile: line %d: header column %d is %s, want %q with its unit", line, i+1, echo(fields[i]), want)
 		}
@@ -263,57 +264,10 @@ func echo(f string) string {
 	return strconv.Quote(f)
 }
 
-// plainDecimal reports whether s is a plain decimal number: an optional sign, digits with an
-// optional decimal point (at least one digit), and an optional exponent e or E with an
-// optional sign and at least one digit. strconv.ParseFloat accepts more (hexadecimal floats,
-// underscores, Inf, NaN), none of which a measured profile should contain.
-func plainDecimal(s string) bool {
-	i := 0
-	if i < len(s) && (s[i] == '+' || s[i] == '-') {
-		i++
-	}
-	digits := 0
-	for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-		digits++
-	}
-	if i < len(s) && s[i] == '.' {
-		for i++; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-			digits++
-		}
-	}
-	if digits == 0 {
-		return false
-	}
-	if i < len(s) && (s[i] == 'e' || s[i] == 'E') {
-		i++
-		if i < len(s) && (s[i] == '+' || s[i] == '-') {
-			i++
-		}
-		exp := 0
-		for ; i < len(s) && s[i] >= '0' && s[i] <= '9'; i++ {
-			exp++
-		}
-		if exp == 0 {
-			return false
-		}
-	}
-	return i == len(s)
-}
-
-// splitUnit splits "name (unit)" into name and unit; ok is false without parentheses.
-func splitUnit(f string) (name, unit string, ok bool) {
-	f = strings.TrimSpace(f)
-	i := strings.IndexByte(f, '(')
-	if i < 0 || !strings.HasSuffix(f, ")") {
-		return f, "", false
-	}
-	return strings.TrimSpace(f[:i]), strings.TrimSpace(f[i+1 : len(f)-1]), true
-}
-
 // parseNumber parses a field, a plain decimal number, as a finite float64.
 func parseNumber(line int, what, f string) (float64, error) {
 	s := strings.TrimSpace(f)
-	if !plainDecimal(s) {
+	if !csvtext.PlainDecimal(s) {
 		return 0, fmt.Errorf("profile: line %d: %s %s is not a number (plain decimal, such as 2.5e20)", line, what, echo(s))
 	}
 	v, err := strconv.ParseFloat(s, 64)

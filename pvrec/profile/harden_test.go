@@ -8,6 +8,7 @@ import (
 	"testing"
 
 	"github.com/pvrec/pvrec/pvrec"
+	"github.com/pvrec/pvrec/pvrec/internal/csvtext"
 	"github.com/pvrec/pvrec/pvrec/silicon"
 )
 
@@ -192,8 +193,8 @@ func TestReadCSVStrict(t *testing.T) {
 		}
 	}
 	for _, f := range []string{"1", "+1", "-0", "1.", ".5", "2.5e20", "2.5E+20", "3e-3"} {
-		if !plainDecimal(f) {
-			t.Errorf("plainDecimal(%q) = false", f)
+		if !csvtext.PlainDecimal(f) {
+			t.Errorf("csvtext.PlainDecimal(%q) = false", f)
 		}
 	}
 	long := strings.Repeat("x", 60000)
