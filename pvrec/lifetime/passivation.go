@@ -39,7 +39,7 @@ type PassivationFit struct {
 	N              int                 // points used
 	CorrQfDit      float64             // correlation of the Qf and ln DitFactor estimates, in [−1, 1]
 	Response       float64             // rms change of ln τeff for a unit step along the parameters' weakest combination
-	OtherSignRatio float64             // cost of the best fit with Qf of the other sign over this one's (>= 1)
+	OtherSignRatio float64             // cost of the best fit with Qf of the other sign over this one's (>= 1, at most 1e100)
 	Reliable       bool                // false when a warning below means the numbers are not determined
 	Warnings       []string            // degeneracies and other reasons to distrust the fit
 }
@@ -66,8 +66,8 @@ const (
 //
 // The minimisation runs twice, once with Qf kept to the sign of Start.Qf (negative for a start
 // of 0) and once to the other sign, starting from ±Start.Qf (the cost has one valley per sign:
-// accumulation and inversion of the same wafer can give similar τeff), and keeps the better; OtherSignRatio says how much worse the other sign fits. The fit warns,
-// and clears Reliable, when the data barely respond along some combination of the parameters
+// accumulation and inversion of the same wafer can give similar τeff), and keeps the better;
+// OtherSignRatio says how much worse the other sign fits. The fit warns, and clears Reliable, when the data barely respond along some combination of the parameters
 // (Response below MinResponse: only a combination is determined, typically with data in low
 // injection only, where the Seff of a strongly accumulated surface scales as Dit/Qf²; add
 // high-injection points), when correlated estimates (|CorrQfDit| > DegenerateCorrelation) have
@@ -209,14 +209,11 @@ func FitPassivation(s Sample, dn, tau []float64, o PassivationOptions) (Passivat
 	fit := PassivationFit{Model: model(p), Qf: 1e12 * p[0], DitFactor: math.Exp(p[1]), N: len(xs), Reliable: true}
 	fit.SigmaRatio = float64(ratio(fit.Model))
 	fit.RMS = math.Sqrt(best.F / float64(len(xs)))
-	fit.OtherSignRatio = math.MaxFloat64
-	if alt != nil && !math.IsInf(alt.F, 0) && best.F > 0 {
+	// The other sign's cost over this one's, at most 1e100 (no fit of the other sign, or a
+	// perfect fit of this one).
+	fit.OtherSignRatio = 1e100
+	if alt != nil && !math.IsInf(alt.F, 0) && alt.F < 1e100*best.F {
 		fit.OtherSignRatio = alt.F / best.F
-	} else if alt != nil && !math.IsInf(alt.F, 0) {
-		fit.OtherSignRatio = 1e100 // a perfect fit of this sign, not of the other
-	}
-	if fit.OtherSignRatio > 1e100 {
-		fit.OtherSignRatio = 1e100
 	}
 	if fit.OtherSignRatio < SignAmbiguity {
 		fit.Reliable = false

@@ -78,7 +78,7 @@ type UShapedDit struct {
 // never overflows (the integral of ExtendedSRH stays within a few kT of the edges). It returns
 // 0 for malformed parameters, which Validate reports (ExtendedSRH calls it).
 func (m UShapedDit) Density(e float64) float64 {
-	if m.Validate() != nil {
+	if !m.ok() {
 		return 0
 	}
 	e = math.Max(m.Ev-ditEdgeMargin, math.Min(m.Ec+ditEdgeMargin, e))
@@ -91,6 +91,15 @@ const ditEdgeMargin = 0.5
 // minTailWidth is the narrowest tail UShapedDit accepts, eV: 1 meV, far below kT at any
 // temperature of interest (our bound, so that exp((e − Ec)/WidthC) cannot overflow).
 const minTailWidth = 1e-3
+
+// ok reports whether Validate would accept m, without building an error: Density is evaluated
+// at every quadrature node.
+func (m UShapedDit) ok() bool {
+	return m.Mid >= 0 && m.TailC >= 0 && m.TailV >= 0 &&
+		m.Mid <= check.MaxMagnitude && m.TailC <= check.MaxMagnitude && m.TailV <= check.MaxMagnitude &&
+		m.WidthC >= minTailWidth && m.WidthV >= minTailWidth && m.WidthC <= check.MaxMagnitude && m.WidthV <= check.MaxMagnitude &&
+		m.Ev < m.Ec && !math.IsInf(m.Ec-m.Ev, 0)
+}
 
 // Validate returns an error unless the densities are finite and >= 0, the widths finite and
 // at least 1 meV, and Ev < Ec.
@@ -143,7 +152,8 @@ type GaussianDit struct {
 // Density returns Dit in cm^-2 eV^-1 at e = E − Ei in eV, or 0 for malformed parameters,
 // which Validate reports (ExtendedSRH calls it).
 func (m GaussianDit) Density(e float64) float64 {
-	if m.Validate() != nil {
+	if !(m.Peak >= 0 && m.Peak <= check.MaxMagnitude && m.Width >= check.MinPositive && m.Width <= check.MaxMagnitude &&
+		math.Abs(m.E0) <= check.MaxMagnitude) { // what Validate checks, without building an error
 		return 0
 	}
 	z := (e - m.E0) / m.Width

@@ -160,3 +160,53 @@ func TestDitStrings(t *testing.T) {
 		}
 	}
 }
+
+// TestDitOkMatchesValidate: the cheap checks that Density makes at every node accept exactly
+// what Validate accepts (derived: they are the same conditions without the error).
+func TestDitOkMatchesValidate(t *testing.T) {
+	vals := []float64{0.1, 0, -1, math.NaN(), math.Inf(1), 1e-300, 1e300, 5e-4, 0.56, -0.56}
+	for _, v := range vals {
+		for k := 0; k < 7; k++ {
+			u := UShapedDit{Mid: 1e10, TailC: 1e13, TailV: 1e13, Ec: 0.56, Ev: -0.56, WidthC: 0.1, WidthV: 0.1}
+			switch k {
+			case 0:
+				u.Mid = v
+			case 1:
+				u.TailC = v
+			case 2:
+				u.TailV = v
+			case 3:
+				u.Ec = v
+			case 4:
+				u.Ev = v
+			case 5:
+				u.WidthC = v
+			case 6:
+				u.WidthV = v
+			}
+			if u.ok() != (u.Validate() == nil) {
+				t.Errorf("%+v: ok %v, Validate %v", u, u.ok(), u.Validate())
+			}
+			if !u.ok() && u.Density(0) != 0 {
+				t.Errorf("%+v: malformed but Density %g", u, u.Density(0))
+			}
+		}
+		for k := 0; k < 3; k++ {
+			g := GaussianDit{Peak: 1e12, E0: 0.1, Width: 0.05}
+			switch k {
+			case 0:
+				g.Peak = v
+			case 1:
+				g.E0 = v
+			case 2:
+				g.Width = v
+			}
+			if (g.Validate() != nil) && g.Density(0.1) != 0 {
+				t.Errorf("%+v: malformed but Density %g", g, g.Density(0.1))
+			}
+			if g.Validate() == nil && g.Density(g.E0) != g.Peak {
+				t.Errorf("%+v: valid but Density at the peak %g", g, g.Density(g.E0))
+			}
+		}
+	}
+}

@@ -382,10 +382,7 @@ func (m ExtendedSRH) solve(s recomb.State, maxPanel float64, order int) (Result,
 	if err := m.validate(s); err != nil {
 		return Result{}, err
 	}
-	np, err := excess(s)
-	if err != nil {
-		return Result{}, err
-	}
+	np := s.Excess // validated (positive) by m.validate
 	ve, vh, err := m.Vth.At(s.T)
 	if err != nil {
 		return Result{}, fmt.Errorf("surface: ExtendedSRH.Vth: %w", err)

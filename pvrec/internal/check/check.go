@@ -92,13 +92,17 @@ const (
 	MaxDensity = 5.0e22
 )
 
+// bound returns the RangeError of a physical bound (no model: it holds for every model) with
+// a message of its own.
+func bound(arg, unit string, v, lo, hi float64, format string, a ...any) *RangeError {
+	return &RangeError{Arg: arg, Unit: unit, Value: v, Min: lo, Max: hi, msg: fmt.Sprintf(format, a...)}
+}
+
 // magnitude returns a RangeError if |v| > MaxMagnitude (v finite).
 func magnitude(ctx, name string, v float64, unit string) error {
 	if math.Abs(v) > MaxMagnitude {
-		e := Range(ctx, name, name, unit, v, -MaxMagnitude, MaxMagnitude)
-		e.Model = ""
-		e.msg = fmt.Sprintf("%s: %s = %g%s is beyond any physical value (|v| > %g)", ctx, name, v, spaced(unit), float64(MaxMagnitude))
-		return e
+		return bound(name, unit, v, -MaxMagnitude, MaxMagnitude,
+			"%s: %s = %g%s is beyond any physical value (|v| > %g)", ctx, name, v, spaced(unit), float64(MaxMagnitude))
 	}
 	return nil
 }
@@ -117,10 +121,8 @@ func Positive(ctx, name string, v float64, unit string) error {
 		return fmt.Errorf("%s: %s must be finite and > 0%s, got %g", ctx, name, spaced(unit), v)
 	}
 	if v < MinPositive {
-		e := Range(ctx, name, name, unit, v, MinPositive, MaxMagnitude)
-		e.Model = ""
-		e.msg = fmt.Sprintf("%s: %s = %g%s is below any physical value (< %g)", ctx, name, v, spaced(unit), float64(MinPositive))
-		return e
+		return bound(name, unit, v, MinPositive, MaxMagnitude,
+			"%s: %s = %g%s is below any physical value (< %g)", ctx, name, v, spaced(unit), float64(MinPositive))
 	}
 	return magnitude(ctx, name, v, unit)
 }
@@ -164,10 +166,8 @@ func Density(ctx, name string, v float64) error {
 		return err
 	}
 	if v > MaxDensity {
-		e := Range(ctx, name, name, "cm^-3", v, 0, MaxDensity)
-		e.Model = ""
-		e.msg = fmt.Sprintf("%s: %s = %g cm^-3 exceeds the atomic density of silicon, %g cm^-3", ctx, name, v, float64(MaxDensity))
-		return e
+		return bound(name, "cm^-3", v, 0, MaxDensity,
+			"%s: %s = %g cm^-3 exceeds the atomic density of silicon, %g cm^-3", ctx, name, v, float64(MaxDensity))
 	}
 	return nil
 }
