@@ -2,7 +2,7 @@
 #
 #   make demo   install what is missing, then execute every notebook headless and write the
 #               executed notebooks and their HTML renderings to out/notebooks/
-#   make test   the same installs, then go vet, go test, an execution of every notebook, and a
+#   make test   the same installs (and Chromium, pdfLaTeX), then go vet, go test, an execution of every notebook, and a
 #               look at every rendered notebook in headless Chromium (screenshots in out/notebooks/)
 #
 # Other targets: make setup (installs only), make bench, make reference (regenerate the committed
@@ -15,12 +15,12 @@ GOBIN := $(shell go env GOPATH)/bin
 export PATH := $(GOBIN):$(PATH)
 OUT := out/notebooks
 
-.PHONY: demo test setup setup-jupyter setup-go setup-browser vet gotest notebooks bench reference strip
+.PHONY: demo test setup setup-jupyter setup-go setup-browser setup-tex vet gotest notebooks bench reference strip
 
 demo: setup
 	@notebooks/run.sh $(OUT)
 
-test: setup setup-browser vet gotest
+test: setup setup-browser setup-tex vet gotest
 	@notebooks/run.sh $(OUT)
 	@notebooks/browser.sh $(OUT)
 
@@ -51,6 +51,19 @@ setup-browser:
 		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends chromium fonts-liberation fontconfig >/dev/null; \
 	else \
 		echo "setup: please install Debian's chromium and fonts-liberation (sudo apt-get install chromium fonts-liberation), then rerun"; \
+		exit 1; \
+	fi
+
+# Debian's pdfLaTeX and pgf (texlive-latex-base, texlive-pictures; about 230 MB), with which the
+# plots tests compile the TeX export (TestTeXCompiles; skipped where pdflatex is missing).
+setup-tex:
+	@if command -v pdflatex >/dev/null && kpsewhich pgf.sty >/dev/null 2>&1; then \
+		echo "setup: pdflatex and pgf present"; \
+	elif [ "$$(id -u)" = 0 ]; then \
+		echo "setup: installing Debian's texlive-latex-base and texlive-pictures"; \
+		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends texlive-latex-base texlive-pictures >/dev/null; \
+	else \
+		echo "setup: please install Debian's texlive-latex-base and texlive-pictures (sudo apt-get install texlive-latex-base texlive-pictures), then rerun"; \
 		exit 1; \
 	fi
 

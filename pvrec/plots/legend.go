@@ -71,7 +71,9 @@ func (b *legendBox) Plot(c draw.Canvas, plt *plot.Plot) {
 	g.Max = vg.Point{X: g.Min.X + w, Y: g.Min.Y + h}
 	pad := vg.Points(1.5)
 	g.Min, g.Max = g.Min.Sub(vg.Point{X: pad, Y: pad}), g.Max.Add(vg.Point{X: pad, Y: pad})
-	c.SetColor(color.NRGBA{R: 255, G: 255, B: 255, A: 217})
+	// Opaque, as the bands are: vgeps has no transparency and vgtex writes the
+	// premultiplied colour with an opacity, so a translucent white would print grey there.
+	c.SetColor(color.White)
 	c.Fill(g.Path())
 	l.Draw(c)
 }

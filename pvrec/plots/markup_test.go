@@ -2,6 +2,7 @@ package plots
 
 import (
 	"image/color"
+	"math"
 	"strings"
 	"testing"
 
@@ -211,14 +212,36 @@ func TestDrawModes(t *testing.T) {
 	if want := len([]rune("Δn(cm−3)")); fills != want {
 		t.Errorf("outline mode filled %d glyphs, want %d", fills, want)
 	}
-	var tex []string
-	for _, a := range draw(drawLaTeX).Actions {
-		if fs, ok := a.(*recorder.FillString); ok {
-			tex = append(tex, fs.String)
+	// LaTeX: one string, anchored at the edge the text is aligned to (vgtex centres what it
+	// writes on X + Width/2), flush left or right of it in a zero-width box.
+	w, _, _ := typesetter{}.Box("Δn (cm^-3)", sty.Font)
+	for _, c := range []struct {
+		align  text.XAlignment
+		src    string
+		anchor vg.Length
+	}{
+		{text.XLeft, `\makebox[0pt][l]{$\Delta$n (cm$^{-3}$)}`, 0},
+		{text.XCenter, `$\Delta$n (cm$^{-3}$)`, 0},
+		{text.XRight, `\makebox[0pt][r]{$\Delta$n (cm$^{-3}$)}`, 0},
+	} {
+		var rc recorder.Canvas
+		s := sty
+		s.XAlign = c.align
+		typesetter{mode: drawLaTeX}.Draw(&rc, "Δn (cm^-3)", s, vg.Point{})
+		var tex []*recorder.FillString
+		for _, a := range rc.Actions {
+			if fs, ok := a.(*recorder.FillString); ok {
+				tex = append(tex, fs)
+			}
 		}
-	}
-	if len(tex) != 1 || tex[0] != `$\Delta$n (cm$^{-3}$)` {
-		t.Errorf("LaTeX mode drew %q", tex)
+		if len(tex) != 1 || tex[0].String != c.src {
+			t.Errorf("LaTeX mode, align %v: drew %+v, want %q", c.align, tex, c.src)
+			continue
+		}
+		f := faceOf(sty.Font)
+		if at := tex[0].Point.X + f.Width(c.src)/2; math.Abs(float64(at-c.anchor)) > 1e-9 {
+			t.Errorf("LaTeX mode, align %v: anchored at %v, want %v (box width %v)", c.align, at, c.anchor, w)
+		}
 	}
 	if n := len(draw(drawText).Actions); n == 0 {
 		t.Errorf("nothing drawn")

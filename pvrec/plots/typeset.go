@@ -14,6 +14,7 @@ import (
 	"gonum.org/v1/plot/font/liberation"
 	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
 )
 
 // gonum/plot's own LaTeX handler (text.Latex, on go-latex v0.2.0) cannot typeset the labels
@@ -186,9 +187,18 @@ func (t typesetter) Draw(c vg.Canvas, txt string, sty text.Style, pt vg.Point) {
 		o := pt.Add(vg.Point{X: vg.Length(sty.XAlign) * w, Y: vg.Length(len(lines)-i) * sty.Font.Size})
 		switch t.mode {
 		case drawLaTeX:
-			// vgtex centres its text on pt.X + Width(text)/2; we want it centred on the box.
-			src := latexSource(toMarkup(line))
-			c.FillString(*base, vg.Point{X: o.X + w/2 - base.Width(src)/2, Y: o.Y}, src)
+			// LaTeX sets the text in the document's fonts, whose width differs from the
+			// Liberation width w of the layout, so the text is anchored at the edge it is
+			// aligned to: a zero-width \makebox holding it flush left or right of the anchor
+			// (centred for centred text). vgtex centres what it writes on pt.X + Width/2.
+			src, at := latexSource(toMarkup(line)), o.X+w/2
+			switch sty.XAlign {
+			case draw.XLeft:
+				src, at = `\makebox[0pt][l]{`+src+`}`, o.X
+			case draw.XRight:
+				src, at = `\makebox[0pt][r]{`+src+`}`, o.X+w
+			}
+			c.FillString(*base, vg.Point{X: at - base.Width(src)/2, Y: o.Y}, src)
 		case drawOutlines:
 			for _, r := range runs {
 				fillOutlines(c, *faceOf(r.fnt), o.Add(vg.Point{X: r.x, Y: r.y}), r.text)
