@@ -1,6 +1,7 @@
 package plots
 
 import (
+	"math"
 	"testing"
 
 	"gonum.org/v1/plot"
@@ -31,6 +32,25 @@ func BenchmarkHeatMapPNG(b *testing.B) {
 	f := Figure{Panels: []*plot.Plot{p}, Preset: Column}
 	for b.Loop() {
 		if _, err := f.Encode("png"); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkHistogram measures a histogram of 100 000 samples with its markers, built and
+// rendered as nb.Show does.
+func BenchmarkHistogram(b *testing.B) {
+	x := make([]float64, 100_000)
+	for i := range x {
+		x[i] = math.Sin(float64(i)*0.7) + math.Cos(float64(i)*1.3)
+	}
+	for b.Loop() {
+		p, err := Histogram(Axes{XLabel: "Voc (V)", YLabel: "draws"}, x,
+			HistogramOptions{Mean: true, Percentiles: []float64{50}, Interval: [2]float64{2.5, 97.5}})
+		if err != nil {
+			b.Fatal(err)
+		}
+		if _, err := SVGInline(p); err != nil {
 			b.Fatal(err)
 		}
 	}

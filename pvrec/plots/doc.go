@@ -15,6 +15,12 @@
 //     mechanism).
 //   - HeatMap: a map of a Grid (GridFunc evaluates a model over xs × ys), e.g. Seff over
 //     Qf × Dit, with a colour bar and contour lines at chosen levels.
+//   - Histogram, Tornado, Strip: the figures of an uncertainty analysis, from plain numbers:
+//     the distribution of a result over draws (bins by the Freedman–Diaconis rule, on a
+//     linear or logarithmic axis, counts or density, lines at the mean and percentiles, an
+//     interval highlighted); the result's swing as each input goes from its low to its high
+//     value, largest on top; the spread of a result over model sets, one row per member with
+//     the default highlighted, long member names broken into lines.
 //   - Figure: one or more panels in a grid with aligned data areas and panel letters (a),
 //     (b), … at a Preset size; Encode and Save by format name or file extension: SVG, PDF,
 //     EPS, PNG, JPEG, TIFF (at a chosen dpi) and TeX (a pgfpicture whose labels LaTeX sets

@@ -89,6 +89,39 @@ func TestHostile(t *testing.T) {
 				return HeatMap(Axes{LogRight: log}, Grid{X: []float64{1, 2}, Y: []float64{1, 2}, Z: [][]float64{{v, v}, {v, v}}})
 			})
 		}
+		for _, log := range []bool{false, true} {
+			for slot := range 3 {
+				x := []float64{1, 2, 3, 5}
+				opt := HistogramOptions{Mean: true, Percentiles: []float64{50}, Interval: [2]float64{2.5, 97.5}}
+				switch slot {
+				case 0:
+					x[1] = v
+				case 1:
+					opt.Percentiles[0] = v
+				default:
+					opt.Interval[1] = v
+				}
+				call(t, "Histogram", func() (*plot.Plot, error) { return Histogram(Axes{LogX: log}, x, opt) })
+			}
+			call(t, "Histogram constant", func() (*plot.Plot, error) {
+				return Histogram(Axes{LogX: log}, []float64{v, v, v}, HistogramOptions{Density: true, Mean: true})
+			})
+			call(t, "Histogram pair", func() (*plot.Plot, error) {
+				return Histogram(Axes{LogX: log}, []float64{v, 1}, HistogramOptions{Density: true, Bins: 50})
+			})
+			for slot := range 3 {
+				base, b := 1.0, TornadoBar{"a", 0.5, 2}
+				*[]*float64{&base, &b.Low, &b.High}[slot] = v
+				call(t, "Tornado", func() (*plot.Plot, error) { return Tornado(Axes{LogX: log}, base, []TornadoBar{b, {"b", 1, 1}}) })
+			}
+			call(t, "Strip", func() (*plot.Plot, error) {
+				return Strip(Axes{LogX: log}, StripGroup{Label: "g", Members: []StripMember{{Label: "a", Value: v, Default: true}, {Label: "b", Value: 1}}},
+					StripGroup{Label: "h", Members: []StripMember{{Label: "c", Value: -v}}})
+			})
+			call(t, "Strip constant", func() (*plot.Plot, error) {
+				return Strip(Axes{LogX: log}, StripGroup{Members: []StripMember{{Label: "a", Value: v}, {Label: "b", Value: v}}})
+			})
+		}
 		call(t, "Bars", func() (*plot.Plot, error) { return Bars(Axes{}, Bar{"a", v}, Bar{"b", 1}) })
 		call(t, "Stacked", func() (*plot.Plot, error) {
 			return Stacked(Axes{}, []string{"a", "b"}, BarSet{"x", []float64{v, 1}}, BarSet{"y", []float64{v, 2}})
