@@ -14,7 +14,8 @@
 //     sets side by side (designs compared), sets end to end (a budget by region and
 //     mechanism).
 //   - HeatMap: a map of a Grid (GridFunc evaluates a model over xs × ys), e.g. Seff over
-//     Qf × Dit, with a colour bar and contour lines at chosen levels.
+//     Qf × Dit, with a colour bar and contour lines at chosen levels, labelled with their
+//     values.
 //   - Histogram, Tornado, Strip: the figures of an uncertainty analysis, from plain numbers:
 //     the distribution of a result over draws (bins by the Freedman–Diaconis rule, on a
 //     linear or logarithmic axis, counts or density, lines at the mean and percentiles, an

@@ -5,11 +5,13 @@ import (
 	"image/color"
 	"math"
 	"slices"
+	"strconv"
 	"sync"
 
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette/moreland"
 	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/text"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 )
@@ -55,7 +57,10 @@ func GridFunc(xs, ys []float64, f func(x, y float64) (float64, error)) (Grid, er
 // the cells meeting halfway between nodes (geometrically halfway on a logarithmic axis) and
 // filling the frame; a colour bar on the right labelled ax.RightLabel, logarithmic if
 // ax.LogRight; and, for each of the levels, a contour line across the map (black on a white
-// edge, readable on every colour) marked on the colour bar. The colours are a
+// edge, readable on every colour) marked on the colour bar and labelled with its value on a
+// white ground, written as the colour bar writes values (decades as 10^n on a logarithmic
+// scale), on the line near the middle of the map, clear of the frame and of the other
+// labels (a level whose lines leave no such room goes unlabelled). The colours are a
 // luminance-linear map (Kindlmann, Reinhard and Creem, "Face-based luminance matching for
 // perceptual colormap generation", IEEE Visualization 2002, as gonum/plot's palette/moreland
 // has it, from dark violet to near-white), which orders the values alike in colour, in
@@ -259,6 +264,74 @@ func (k *contours) Plot(c draw.Canvas, plt *plot.Plot) {
 		ct.LineStyles = []draw.LineStyle{sty}
 		ct.Plot(c, &q)
 	}
+	k.labels(c, &q, plt.Y.Tick.Label, g, levels)
+}
+
+// labels writes each level's value on one of its contour lines, in the tick labels' style
+// on a white ground that breaks the line: at the crossing of a grid edge (where the lines
+// run, as plotter.Contour interpolates them linearly along the edges) nearest the middle of
+// the map whose label keeps clear of the frame and of the labels already placed. A level
+// whose lines have no such place is left unlabelled (its mark on the colour bar remains).
+func (k *contours) labels(c draw.Canvas, q *plot.Plot, sty text.Style, g gridXYZ, levels []float64) {
+	trX, trY := q.Transforms(&c)
+	sty.XAlign, sty.YAlign = draw.XCenter, draw.YCenter
+	pad := vg.Points(1.5)
+	mid := vg.Point{X: (c.Min.X + c.Max.X) / 2, Y: (c.Min.Y + c.Max.Y) / 2}
+	var placed []vg.Rectangle
+	nx, ny := g.Dims()
+	for li, l := range levels {
+		text := levelLabel(k.levels[li], k.logZ)
+		w, h := sty.Width(text)+2*pad, sty.Height(text)+pad
+		var best vg.Rectangle
+		bestD := vg.Length(math.Inf(1))
+		try := func(x, y float64) {
+			pt := vg.Point{X: trX(x), Y: trY(y)}
+			r := vg.Rectangle{Min: vg.Point{X: pt.X - w/2, Y: pt.Y - h/2}, Max: vg.Point{X: pt.X + w/2, Y: pt.Y + h/2}}
+			if r.Min.X < c.Min.X+pad || r.Max.X > c.Max.X-pad || r.Min.Y < c.Min.Y+pad || r.Max.Y > c.Max.Y-pad {
+				return
+			}
+			for _, o := range placed {
+				if r.Min.X < o.Max.X && o.Min.X < r.Max.X && r.Min.Y < o.Max.Y && o.Min.Y < r.Max.Y {
+					return
+				}
+			}
+			if d := abs(pt.X-mid.X) + abs(pt.Y-mid.Y)/2; d < bestD {
+				best, bestD = r, d
+			}
+		}
+		cross := func(x0, y0, z0, x1, y1, z1 float64) {
+			if (z0 < l) != (z1 < l) {
+				t := (l - z0) / (z1 - z0)
+				try(x0+t*(x1-x0), y0+t*(y1-y0))
+			}
+		}
+		for j := range ny {
+			for i := range nx {
+				if i+1 < nx {
+					cross(g.X(i), g.Y(j), g.Z(i, j), g.X(i+1), g.Y(j), g.Z(i+1, j))
+				}
+				if j+1 < ny {
+					cross(g.X(i), g.Y(j), g.Z(i, j), g.X(i), g.Y(j+1), g.Z(i, j+1))
+				}
+			}
+		}
+		if math.IsInf(float64(bestD), 1) {
+			continue
+		}
+		placed = append(placed, best)
+		c.SetColor(color.White)
+		c.Fill(best.Path())
+		c.FillText(sty, vg.Point{X: (best.Min.X + best.Max.X) / 2, Y: (best.Min.Y + best.Max.Y) / 2}, text)
+	}
+}
+
+// levelLabel is the label of contour level v: a power of ten as 10^n on a logarithmic
+// scale, as the colour bar labels its decades; otherwise as the linear ticks label a value.
+func levelLabel(v float64, log bool) string {
+	if n := math.Round(math.Log10(v)); log && math.Pow(10, n) == v {
+		return "$10^{" + strconv.Itoa(int(n)) + "}$"
+	}
+	return numberLabels([]float64{v})[0]
 }
 
 // gridXYZ is a Grid as plotter.GridXYZ, in logarithms where log.

@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/recorder"
 )
@@ -110,6 +111,64 @@ func TestHeatMap(t *testing.T) {
 	})
 	if !errors.Is(err, errTest) || !strings.Contains(err.Error(), "x=1, y=2") {
 		t.Errorf("GridFunc error %v", err)
+	}
+}
+
+// TestContourLabels checks that each level with a line is labelled once, inside the data
+// area and clear of its frame, that labels do not overlap, that a level without a line
+// has no label, and the labels' form (powers of ten on a logarithmic scale, as the colour
+// bar's decades).
+func TestContourLabels(t *testing.T) {
+	// z = x + y over [0, 10]²: the lines of 3.7, 6.3 and 8.1 are diagonals; 25 has none.
+	xs := []float64{0, 2, 4, 6, 8, 10}
+	g, err := GridFunc(xs, xs, func(x, y float64) (float64, error) { return x + y, nil })
+	if err != nil {
+		t.Fatal(err)
+	}
+	p, err := HeatMap(Axes{RightLabel: "z"}, g, 3.7, 6.3, 8.1, 25)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var rc recorder.Canvas
+	dc := draw.NewCanvas(&rc, 12*vg.Centimeter, 9*vg.Centimeter)
+	p.Draw(dc)
+	da := p.DataCanvas(dc).Rectangle
+	found := map[string][]vg.Point{}
+	for _, a := range rc.Actions {
+		if fs, ok := a.(*recorder.FillString); ok {
+			found[fs.String] = append(found[fs.String], fs.Point)
+		}
+	}
+	var at []vg.Point
+	for _, l := range []string{"3.7", "6.3", "8.1"} {
+		if len(found[l]) != 1 {
+			t.Errorf("level %s labelled %d times", l, len(found[l]))
+			continue
+		}
+		pt := found[l][0]
+		if pt.X < da.Min.X+vg.Points(2) || pt.X > da.Max.X-vg.Points(10) || pt.Y < da.Min.Y+vg.Points(2) || pt.Y > da.Max.Y-vg.Points(8) {
+			t.Errorf("label %s at %v, not inside the data area %v", l, pt, da)
+		}
+		at = append(at, pt)
+	}
+	for i := range at {
+		for j := range i {
+			if abs(at[i].X-at[j].X) < vg.Points(12) && abs(at[i].Y-at[j].Y) < vg.Points(8) {
+				t.Errorf("labels %d and %d overlap: %v, %v", j, i, at[j], at[i])
+			}
+		}
+	}
+	if len(found["25"]) != 0 {
+		t.Errorf("level 25 has no line but a label")
+	}
+	for _, c := range []struct {
+		v    float64
+		log  bool
+		want string
+	}{{100, true, "$10^{2}$"}, {1, true, "$10^{0}$"}, {1e-3, true, "$10^{-3}$"}, {50, true, "$50$"}, {100, false, "$100$"}, {2.5e6, false, `$2.5\times10^{6}$`}} {
+		if got := levelLabel(c.v, c.log); got != c.want {
+			t.Errorf("levelLabel(%g, %v) = %q, want %q", c.v, c.log, got, c.want)
+		}
 	}
 }
 
