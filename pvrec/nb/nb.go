@@ -15,7 +15,9 @@ import (
 // Show displays p inline in the notebook as a light SVG (plots.SVGInline) at the house
 // notebook size, scaled to the width of the page. Like every display function here it waits
 // until GoNB has received the content (gonbui.Sync), so that output is not lost when the
-// cell's program ends right after.
+// cell's program ends right after. For a figure in Liberation Serif (to match a serif
+// manuscript), or at another preset size, show it as a plots.Figure:
+// nb.ShowFigure(plots.Figure{Panels: []*plot.Plot{p}, Serif: true}).
 func Show(p *plot.Plot) error {
 	svg, err := plots.SVGInline(p)
 	if err != nil {
@@ -25,7 +27,8 @@ func Show(p *plot.Plot) error {
 	return nil
 }
 
-// ShowFigure displays a plots.Figure (several panels, a preset size) like Show.
+// ShowFigure displays a plots.Figure (several panels, a preset size, Serif for Liberation
+// Serif type) like Show.
 func ShowFigure(f plots.Figure) error {
 	svg, err := f.SVGInline()
 	if err != nil {
