@@ -74,7 +74,7 @@ const figureBorder = 3
 const maxPanels = 26
 
 // Figure is a figure ready for export: one or more panels (plots made by Lines, Bars,
-// Grouped, Stacked, HeatMap or plot.New) at a preset size, laid out in a grid whose data
+// Grouped, Stacked, HeatMap, Histogram, Tornado, Strip or plot.New) at a preset size, laid out in a grid whose data
 // areas line up (plot.Align), each panel lettered (a), (b), … at its top left when there are
 // several.
 //

@@ -50,8 +50,8 @@ type HistogramOptions struct {
 // The x axis holds every bin with the house margin; the y axis starts at 0. It returns an
 // error for no samples, a sample that is not finite (or not > 0 on a logarithmic axis),
 // samples spanning more than a float64 holds, Bins outside 0…MaxBins, a percentile outside
-// 0…100, an interval with low ≥ high or outside 0…100, a label that is markup and does not
-// parse, or axes options a histogram cannot honour (LogY, RightLabel, LogRight).
+// 0…100, an interval with low ≥ high or outside 0…100, a density that overflows (samples a
+// few subnormal numbers apart), a label that is markup and does not parse, or axes options a histogram cannot honour (LogY, RightLabel, LogRight).
 func Histogram(ax Axes, samples []float64, opt HistogramOptions) (*plot.Plot, error) {
 	h, err := newHistogram(ax, samples, opt)
 	if err != nil {
@@ -132,6 +132,9 @@ func newHistogram(ax Axes, samples []float64, opt HistogramOptions) (*histogram,
 		for i := range counts {
 			w := dividers[i+1] - dividers[i] // in x, or in decades
 			h.heights[i] = counts[i] / (float64(n) * w)
+			if math.IsInf(h.heights[i], 0) {
+				return nil, fmt.Errorf("plots: Histogram: samples from %g to %g are too close for a density in %d bins (it overflows); rescale them", x[0], x[n-1], len(counts))
+			}
 		}
 	}
 	// The mean of values near ±MaxFloat64 overflows in the sum: scale them down first.

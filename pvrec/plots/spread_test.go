@@ -362,3 +362,40 @@ func TestHistogramQuantileKind(t *testing.T) {
 		t.Errorf("P30 = %g, want %g", h.pcts[0], want)
 	}
 }
+
+// FuzzHistogram bins arbitrary samples: an error or bins that count every sample once, with
+// edges in order, never a panic.
+func FuzzHistogram(f *testing.F) {
+	f.Add([]byte{1, 2, 3, 4, 5, 6, 7, 8}, false, uint8(0))
+	f.Add([]byte{0, 0, 0, 0, 0, 0, 0xf0, 0x7f, 0, 0, 0, 0, 0, 0, 0xf0, 0x7f}, true, uint8(3))
+	f.Add([]byte{0xff, 0xff, 0xff, 0xff, 0xff, 0xff, 0xef, 0x7f, 1, 0, 0, 0, 0, 0, 0, 0}, false, uint8(0))
+	f.Fuzz(func(t *testing.T, b []byte, log bool, bins uint8) {
+		var x []float64
+		for i := 0; i+8 <= len(b) && len(x) < 4096; i += 8 {
+			x = append(x, math.Float64frombits(uint64(b[i])|uint64(b[i+1])<<8|uint64(b[i+2])<<16|uint64(b[i+3])<<24|
+				uint64(b[i+4])<<32|uint64(b[i+5])<<40|uint64(b[i+6])<<48|uint64(b[i+7])<<56))
+		}
+		h, err := newHistogram(Axes{LogX: log}, x, HistogramOptions{Bins: int(bins), Density: bins%2 == 1, Mean: true, Percentiles: []float64{50}})
+		if err != nil {
+			return
+		}
+		total := 0.0
+		for i, v := range h.heights {
+			if math.IsNaN(v) || math.IsInf(v, 0) || v < 0 {
+				t.Fatalf("bin %d height %g", i, v)
+			}
+			if !(h.edges[i+1] > h.edges[i]) && !(log && h.edges[i+1] >= h.edges[i]) {
+				t.Fatalf("edges %d, %d: %g, %g", i, i+1, h.edges[i], h.edges[i+1])
+			}
+		}
+		if !(bins%2 == 1) {
+			total = floatsSum(h.heights)
+			if total != float64(len(x)) {
+				t.Fatalf("%g of %d samples counted", total, len(x))
+			}
+		}
+		if math.IsNaN(h.mean) || math.IsInf(h.mean, 0) {
+			t.Fatalf("mean %g", h.mean)
+		}
+	})
+}
