@@ -234,12 +234,12 @@ func ExampleTornado() {
 func ExampleStrip() {
 	p, err := plots.Strip(plots.Axes{XLabel: "J0 (fA/cm^2)", Legend: plots.BottomRight},
 		plots.StripGroup{Label: "BGN varied", Members: []plots.StripMember{
-			{Label: "BGN Schenk1998 + FD, μ Klaassen1992, Auger Richter2012", Value: 31.5, Default: true},
-			{Label: "BGN Slotboom1976, μ Klaassen1992, Auger Richter2012", Value: 36.8},
+			{Label: "BGN model A + FD, μ model M1, Auger model X1", Value: 31.5, Default: true},
+			{Label: "BGN model C, μ model M1, Auger model X1", Value: 36.8},
 		}},
 		plots.StripGroup{Label: "Auger varied", Members: []plots.StripMember{
-			{Label: "Auger Richter2012", Value: 31.5, Default: true},
-			{Label: "Auger Kerr2002", Value: 30.1},
+			{Label: "Auger model X1", Value: 31.5, Default: true},
+			{Label: "Auger model X2", Value: 30.1},
 		}})
 	if err != nil {
 		fmt.Println(err)

@@ -129,11 +129,11 @@ func goldenFigures(t *testing.T) map[string]Figure {
 		{"Qf ± 30 %", 710.5, 713.1}, {"τ_{bulk} ± 50 %", 704, 716}, {"W 160–200 µm", 713, 711}, {"Dit ×3", 708.8, 713}}))
 	strip := must(Strip(Axes{XLabel: "J0 (fA/cm^2)", Legend: BottomRight},
 		StripGroup{Label: "BGN varied", Members: []StripMember{
-			{Label: "BGN Schenk1998 + FD, μ Klaassen1992, Auger Richter2012", Value: 31.5, Default: true},
-			{Label: "BGN Yan2014 + FD, μ Klaassen1992, Auger Richter2012", Value: 29.2},
-			{Label: "BGN Slotboom1976, μ Klaassen1992, Auger Richter2012", Value: 36.8}}},
+			{Label: "BGN model A + FD, μ model M1, Auger model X1", Value: 31.5, Default: true},
+			{Label: "BGN model B + FD, μ model M1, Auger model X1", Value: 29.2},
+			{Label: "BGN model C, μ model M1, Auger model X1", Value: 36.8}}},
 		StripGroup{Label: "mobility varied", Members: []StripMember{
-			{Label: "μ Klaassen1992", Value: 31.5, Default: true}, {Label: "μ Masetti1983", Value: 33.0}}}))
+			{Label: "μ model M1", Value: 31.5, Default: true}, {Label: "μ model M2", Value: 33.0}}}))
 
 	one := func(p *plot.Plot) Figure { return Figure{Panels: []*plot.Plot{p}, Preset: Column, DPI: goldenDPI} }
 	return map[string]Figure{

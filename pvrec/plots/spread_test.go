@@ -259,10 +259,10 @@ func TestTornado(t *testing.T) {
 // TestStrip checks the rows (in order from the top, groups apart), the breaking of long
 // member labels into lines that fit, the axis holding every value, the legend, and the errors.
 func TestStrip(t *testing.T) {
-	long := "BGN Schenk1998 + FD, μ Klaassen1992, Auger Richter2012"
+	long := "BGN model A + FD, μ model M1, Auger model X1"
 	groups := []StripGroup{
-		{Label: "BGN", Members: []StripMember{{Label: long, Value: 31.5, Default: true}, {Label: "BGN Yan2014", Value: 29}}},
-		{Label: "mobility", Members: []StripMember{{Label: "μ Masetti1983", Value: 33}}},
+		{Label: "BGN", Members: []StripMember{{Label: long, Value: 31.5, Default: true}, {Label: "BGN model B", Value: 29}}},
+		{Label: "mobility", Members: []StripMember{{Label: "μ model M2", Value: 33}}},
 	}
 	p, err := Strip(Axes{XLabel: "J0 (fA/cm^2)", Legend: BottomRight}, groups...)
 	if err != nil {
@@ -284,13 +284,13 @@ func TestStrip(t *testing.T) {
 			t.Errorf("line %q is %v wide, more than %v pt", l, w, stripLabelWidth)
 		}
 	}
-	if ticks[1].Label != "BGN Yan2014" {
+	if ticks[1].Label != "BGN model B" {
 		t.Errorf("short label %q", ticks[1].Label)
 	}
 	if p.X.Min >= 29 || p.X.Max <= 33 {
 		t.Errorf("value axis [%g, %g] does not hold the members", p.X.Min, p.X.Max)
 	}
-	for _, s := range []string{"a\nb, c, d, e, f, g, h, i, j, k, l, m, n, o, p, q, r, s, t, u", `$\mu$ Klaassen1992, $\tau$ one, two, three, four, five, six, seven`} {
+	for _, s := range []string{"a\nb, c, d, e, f, g, h, i, j, k, l, m, n, o, p, q, r, s, t, u", `$\mu$ model M1, $\tau$ one, two, three, four, five, six, seven`} {
 		if got := wrapLabel(s, vg.Points(stripLabelWidth)); got != s {
 			t.Errorf("wrapLabel(%q) = %q, want it as written", s, got)
 		}
@@ -301,7 +301,7 @@ func TestStrip(t *testing.T) {
 	}
 	texts := svgTexts(t, svg)
 	var prev *svgText
-	for _, l := range []string{"BGN", "mobility", "default", "BGN Yan2014", "J0 (fA/cm"} {
+	for _, l := range []string{"BGN", "mobility", "default", "BGN model B", "J0 (fA/cm"} {
 		found := false
 		for _, x := range texts {
 			found = found || x.s == l
@@ -312,7 +312,7 @@ func TestStrip(t *testing.T) {
 	}
 	// The lines of the long label, one below the other at the tick label's size.
 	for _, x := range texts {
-		if x.s == "BGN Schenk1998 + FD," || x.s == "Auger Richter2012" {
+		if x.s == "BGN model A + FD," || x.s == "Auger model X1" {
 			if prev != nil && math.Abs(prev.y-x.y-2*tickSize) > 1e-6 {
 				t.Errorf("label lines %q at %g and %q at %g are not two lines apart", prev.s, prev.y, x.s, x.y)
 			}
