@@ -21,7 +21,7 @@ const (
 // Elasticities returns the elasticity E_i = ∂ln|f|/∂ln|x_i| of f at x0 for each input, by the
 // central difference in ln x,
 //
-//	E_i = ln(f(…, x_i e^h, …) / f(…, x_i e^−h, …)) / (2h),
+//	E_i = (ln|f(…, x_i e^h, …)| − ln|f(…, x_i e^−h, …)|) / (2h),
 //
 // which is exact (to rounding) for a power law f ∝ x_i^a (derivation, no source needed). The
 // other inputs are held at x0. The 1 + 2·len(x0) evaluations run on all cores; f must be safe for
@@ -111,7 +111,8 @@ func elasticities(ctx string, vals []float64, names []string, h float64) ([]floa
 			return nil, fmt.Errorf("%s: input %s: f changes sign or reaches 0 within the step (f = %g, %g, %g at x e^−h, x, x e^h): ln|f| is undefined; use a smaller relStep",
 				ctx, inputName(names, i), fm, f0, fp)
 		}
-		out[i] = math.Log(fp/fm) / (2 * h)
+		// The difference of logarithms, not the log of fp/fm, which can underflow.
+		out[i] = (math.Log(math.Abs(fp)) - math.Log(math.Abs(fm))) / (2 * h)
 	}
 	return out, nil
 }
