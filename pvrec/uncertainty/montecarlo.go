@@ -173,10 +173,10 @@ func validInputs(ctx string, in []Input) error {
 	}
 	for i, x := range in {
 		if x.Dist == nil {
-			return fmt.Errorf("%s: Inputs[%d] (%q): Dist is nil", ctx, i, x.Name)
+			return fmt.Errorf("%s: Inputs[%d] (%s): Dist is nil", ctx, i, quoted(x.Name))
 		}
 		if m := x.Dist.Quantile(0.5); math.IsNaN(m) || math.IsInf(m, 0) {
-			return fmt.Errorf("%s: Inputs[%d] (%q): the distribution's median is %g; want finite (check its parameters)", ctx, i, x.Name, m)
+			return fmt.Errorf("%s: Inputs[%d] (%s): the distribution's median is %g; want finite (check its parameters)", ctx, i, quoted(x.Name), m)
 		}
 	}
 	return nil
@@ -213,7 +213,7 @@ func (mc MonteCarlo) draw(i int, x []float64) error {
 		u := (float64(rng.Uint64()>>11) + 0.5) * 0x1p-53
 		x[j] = in.Dist.Quantile(u)
 		if math.IsNaN(x[j]) || math.IsInf(x[j], 0) {
-			return fmt.Errorf("uncertainty: MonteCarlo: input %q: the distribution gives a non-finite value", in.Name)
+			return fmt.Errorf("uncertainty: MonteCarlo: input %s: the distribution gives a non-finite value", quoted(in.Name))
 		}
 	}
 	return nil
@@ -233,7 +233,7 @@ func (mc MonteCarlo) draw(i int, x []float64) error {
 //   - after MaxSamples samples, Run stops (Converged = false if a tolerance was set and not met).
 //
 // A sample fails when a distribution gives a non-finite input, or f returns an error, panics
-// (the panic becomes its error) or returns a value that is NaN, ±Inf or beyond 1e100 in
+// (the panic becomes its error) or returns a value that is not finite or beyond 1e100 in
 // magnitude; failures are counted and grouped by message with the first sample's index
 // (MCResult.Failures), never dropped. With fewer than 2 successes Run returns an error
 // matching ErrTooFewSuccesses. With an ErrTooFewSuccesses error the result so far is returned

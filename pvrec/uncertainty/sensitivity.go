@@ -30,7 +30,7 @@ const (
 // about ε/h, the truncation error O(h²) for a smooth f.
 //
 // names (nil, or one per input) name the inputs in errors. Elasticities returns an error naming
-// the input for an x0_i that is zero (the elasticity is undefined there), NaN or ±Inf, an error
+// the input for an x0_i that is zero (the elasticity is undefined there) or not finite, an error
 // if f fails at any point (naming the input and the point), if f(x0) is 0 or if f changes sign
 // within the step (ln|f| is undefined), and an error for invalid relStep, mismatched names, an
 // empty x0 or a nil f.
@@ -76,12 +76,20 @@ func validLocal(ctx string, f func([]float64) (float64, error), x0 []float64, na
 	return h, nil
 }
 
-// inputName returns names[i], or "x[i]" without names.
+// inputName returns names[i] quoted (see quoted), or "x[i]" without names.
 func inputName(names []string, i int) string {
 	if i < len(names) && names[i] != "" {
-		return fmt.Sprintf("%q", names[i])
+		return quoted(names[i])
 	}
 	return fmt.Sprintf("x[%d]", i)
+}
+
+// quoted returns s quoted for an error message, cut to its first 40 characters.
+func quoted(s string) string {
+	if r := []rune(s); len(r) > 40 {
+		s = string(r[:40]) + "…"
+	}
+	return fmt.Sprintf("%q", s)
 }
 
 // elasticityPoints returns x0 followed, for each input i, by x0 with x_i e^h and x_i e^−h.
@@ -230,19 +238,19 @@ func (s Sensitivity) Run(f func(x []float64) (float64, error)) (SensitivityResul
 	pts := elasticityPoints(x0, h)
 	for i, in := range s.Inputs {
 		sd := in.Dist.StdDev()
-		if err := check.NonNegative(ctx, fmt.Sprintf("standard deviation of input %q", in.Name), sd, in.Unit); err != nil {
+		if err := check.NonNegative(ctx, "standard deviation of input "+quoted(in.Name), sd, ""); err != nil {
 			return SensitivityResult{}, err
 		}
 		e := Effect{Name: in.Name, Unit: in.Unit, Index: i, X0: x0[i], XLow: in.Dist.Quantile(lo), XHigh: in.Dist.Quantile(hi), RelSigma: sd / math.Abs(x0[i])}
 		for _, x := range []float64{e.XLow, e.XHigh} {
 			if math.IsNaN(x) || math.IsInf(x, 0) {
-				return SensitivityResult{}, fmt.Errorf("%s: input %q: its distribution gives %g at the quantiles %g, %g; want finite", ctx, in.Name, x, lo, hi)
+				return SensitivityResult{}, fmt.Errorf("%s: input %s: its distribution gives %g at the quantiles %g, %g; want finite", ctx, quoted(in.Name), x, lo, hi)
 			}
 			p := slices.Clone(x0)
 			p[i] = x
 			pts = append(pts, p)
 		}
-		if err := check.Result(ctx, fmt.Sprintf("relative standard deviation of input %q", in.Name), e.RelSigma, ""); err != nil {
+		if err := check.Result(ctx, "relative standard deviation of input "+quoted(in.Name), e.RelSigma, ""); err != nil {
 			return SensitivityResult{}, err
 		}
 		effects[i] = e

@@ -39,7 +39,7 @@ var errNoMembers = errors.New("uncertainty: Spread: members is empty (no model t
 // (all cores if workers <= 0, via sweep.Run), and reports each member's result, the range and
 // the default member's position in it. The result does not depend on workers. f must be safe
 // for concurrent use. A member fails when f returns an error, panics (the panic becomes its
-// error) or returns a value that is NaN, ±Inf or beyond 1e100 in magnitude; failures are
+// error) or returns a value that is not finite or beyond 1e100 in magnitude; failures are
 // counted and grouped in SpreadResult.Failures, never dropped.
 //
 // Spread returns an error for an empty members or a nil f, and, with the result, an error
