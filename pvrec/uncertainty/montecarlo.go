@@ -237,7 +237,8 @@ func (mc MonteCarlo) draw(i int, x []float64) error {
 // magnitude; failures are counted and grouped by message with the first sample's index
 // (MCResult.Failures), never dropped. With fewer than 2 successes Run returns an error
 // matching ErrTooFewSuccesses. With an ErrTooFewSuccesses error the result so far is returned
-// too. Run returns an error naming the field for invalid settings, an empty Inputs or a nil f.
+// too: the counts, samples and failures, and (with 2 or more successes) the mean and standard
+// deviation of the successful samples, without percentiles. Run returns an error naming the field for invalid settings, an empty Inputs or a nil f.
 func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error) {
 	s, err := mc.validate()
 	if err != nil {
@@ -291,7 +292,6 @@ func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error)
 	sortFailures(failures)
 	r.Failures = failures
 	if r.N < 2 || float64(r.N) < s.minSuccess*float64(r.Drawn) {
-		r.Mean, r.Std, r.StdErr = 0, 0, 0
 		first := ""
 		if len(failures) > 0 {
 			first = fmt.Sprintf(" (most frequent: %s)", failures[0])

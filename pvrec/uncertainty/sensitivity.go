@@ -30,10 +30,10 @@ const (
 // about ε/h, the truncation error O(h²) for a smooth f.
 //
 // names (nil, or one per input) name the inputs in errors. Elasticities returns an error naming
-// the input for an x0_i that is zero (the elasticity is undefined there) or not finite, an error
-// if f fails at any point (naming the input and the point), if f(x0) is 0 or if f changes sign
-// within the step (ln|f| is undefined), and an error for invalid relStep, mismatched names, an
-// empty x0 or a nil f.
+// the input for an x0_i that is zero (the elasticity is undefined there), not finite or beyond
+// 1e100 in magnitude; an error if f fails at any point (naming the input and the point), if
+// f(x0) is 0 or if f changes sign within the step (ln|f| is undefined); and an error for an
+// invalid relStep, mismatched names, an empty x0 or a nil f.
 func Elasticities(f func(x []float64) (float64, error), x0 []float64, names []string, relStep float64) ([]float64, error) {
 	const ctx = "uncertainty: Elasticities"
 	h, err := validLocal(ctx, f, x0, names, relStep)
@@ -59,8 +59,8 @@ func validLocal(ctx string, f func([]float64) (float64, error), x0 []float64, na
 		return 0, fmt.Errorf("%s: %d names for %d inputs", ctx, len(names), len(x0))
 	}
 	for i, x := range x0 {
-		if math.IsNaN(x) || math.IsInf(x, 0) {
-			return 0, fmt.Errorf("%s: input %s = %g must be finite", ctx, inputName(names, i), x)
+		if err := check.Finite(ctx, "input "+inputName(names, i), x, ""); err != nil {
+			return 0, err
 		}
 		if x == 0 {
 			return 0, fmt.Errorf("%s: input %s is 0: its elasticity d ln f/d ln x is undefined (shift the input's origin, e.g. use T in K or 1 + δ)", ctx, inputName(names, i))
@@ -115,7 +115,7 @@ func elasticities(ctx string, vals []float64, names []string, h float64) ([]floa
 	out := make([]float64, n)
 	for i := range out {
 		fp, fm := vals[1+2*i], vals[2+2*i]
-		if !(fp/f0 > 0 && fm/f0 > 0) {
+		if fp == 0 || fm == 0 || (fp > 0) != (f0 > 0) || (fm > 0) != (f0 > 0) {
 			return nil, fmt.Errorf("%s: input %s: f changes sign or reaches 0 within the step (f = %g, %g, %g at x e^−h, x, x e^h): ln|f| is undefined; use a smaller relStep",
 				ctx, inputName(names, i), fm, f0, fp)
 		}

@@ -42,7 +42,7 @@ func TestElasticitiesErrors(t *testing.T) {
 		want  string
 	}{
 		{id, []float64{1, 0}, []string{"a", "dose"}, 0, `"dose" is 0`},
-		{id, []float64{1, math.NaN()}, nil, 0, "x[1] = NaN"},
+		{id, []float64{1, math.NaN()}, nil, 0, "input x[1] must be finite"},
 		{id, []float64{1, -1}, nil, 0, "f is 0 at x0"},
 		{id, []float64{1, -0.999}, nil, 0.1, "changes sign"},
 		{id, []float64{1, 1}, []string{"a"}, 0, "1 names for 2 inputs"},
