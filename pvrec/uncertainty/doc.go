@@ -34,11 +34,12 @@
 //
 // # Failures
 //
-// A member or sample whose evaluation fails (an error, a panic, a result that is not finite
-// or beyond 1e100) is counted and reported, grouped by message with its count and the index of
-// the first (Failure), never dropped. Spread fails with ErrTooFewSuccesses when no member
-// succeeds, MonteCarlo.Run when fewer than MinSuccess (default 95 %) of the samples succeed;
-// the statistics describe the successful evaluations only.
+// A member or sample whose evaluation fails (an error, a panic, a result that is not finite or
+// beyond 1e100) is counted and reported, grouped by message (numbers aside, see Failure) with
+// its count and the index of the first (Failure), never dropped. Spread fails with
+// ErrTooFewSuccesses when no member succeeds, MonteCarlo.Run when fewer than MinSuccess
+// (default 95 %) of the samples succeed; the statistics describe the successful evaluations
+// only.
 //
 // # Methods and sources
 //

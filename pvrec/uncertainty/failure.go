@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"regexp"
 	"runtime/debug"
 	"sort"
 
@@ -15,10 +16,12 @@ import (
 // result returned with it still lists every failure.
 var ErrTooFewSuccesses = errors.New("uncertainty: too few evaluations succeeded")
 
-// Failure is a group of failed evaluations (model-family members or Monte Carlo samples) that
-// returned the same error message.
+// Failure is a group of failed evaluations (model-family members or Monte Carlo samples) whose
+// error messages are the same but for their numbers: "thickness W = -3e-05 cm must be > 0" and
+// "thickness W = -1.2e-05 cm must be > 0" form one group, so that a distribution with mass
+// where an input is invalid gives one line with a count, not one line per sample.
 type Failure struct {
-	Message string // the error message shared by the group
+	Message string // the error message of the first evaluation of the group
 	Count   int    // number of evaluations that failed with it
 	First   int    // index of the first of them (the member's index, or the sample's index: MonteCarlo.Draw(First) gives its inputs)
 	Err     error  // the error of the first of them (for errors.Is and errors.As; for a panic it carries the stack)
@@ -63,12 +66,17 @@ func evaluate(f func() (float64, error)) (v float64, err error) {
 	return v, nil
 }
 
+// number matches a decimal number in an error message (an offending value, an index), which
+// the grouping of failures ignores.
+var number = regexp.MustCompile(`[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?`)
+
 // groupFailures adds the non-nil errors of errs (index i is evaluation offset+i) to the groups
-// into, by message, in the order of first occurrence, and returns the groups.
+// into, by message with its numbers masked, in the order of first occurrence, and returns the
+// groups.
 func groupFailures(errs []error, offset int, into []Failure) []Failure {
 	at := make(map[string]int, len(into))
 	for i, f := range into {
-		at[f.Message] = i
+		at[number.ReplaceAllString(f.Message, "#")] = i
 	}
 	for i, err := range errs {
 		if err == nil {
@@ -78,11 +86,12 @@ func groupFailures(errs []error, offset int, into []Failure) []Failure {
 		if pe, ok := err.(*panicError); ok {
 			msg = pe.key()
 		}
-		if k, ok := at[msg]; ok {
+		key := number.ReplaceAllString(msg, "#")
+		if k, ok := at[key]; ok {
 			into[k].Count++
 			continue
 		}
-		at[msg] = len(into)
+		at[key] = len(into)
 		into = append(into, Failure{Message: msg, Count: 1, First: offset + i, Err: err})
 	}
 	return into

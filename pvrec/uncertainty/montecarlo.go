@@ -106,7 +106,7 @@ type MCResult struct {
 	Percentiles []Percentile // empirical percentiles (gonum stat.Quantile, stat.Empirical)
 	Samples     []Sample     // the successful samples, in index order
 	Failed      int          // samples whose evaluation failed
-	Failures    []Failure    // the failed samples grouped by message, most frequent first
+	Failures    []Failure    // the failed samples grouped by message (numbers aside), most frequent first
 	Converged   bool         // a tolerance (RelTol or AbsTol) was requested and met
 }
 
@@ -234,11 +234,12 @@ func (mc MonteCarlo) draw(i int, x []float64) error {
 //
 // A sample fails when a distribution gives a non-finite input, or f returns an error, panics
 // (the panic becomes its error) or returns a value that is not finite or beyond 1e100 in
-// magnitude; failures are counted and grouped by message with the first sample's index
-// (MCResult.Failures), never dropped. With fewer than 2 successes Run returns an error
-// matching ErrTooFewSuccesses. With an ErrTooFewSuccesses error the result so far is returned
-// too: the counts, samples and failures, and (with 2 or more successes) the mean and standard
-// deviation of the successful samples, without percentiles. Run returns an error naming the field for invalid settings, an empty Inputs or a nil f.
+// magnitude; failures are counted and grouped by message (numbers aside, see Failure) with the
+// first sample's index (MCResult.Failures), never dropped. With fewer than 2 successes Run
+// returns an error matching ErrTooFewSuccesses. With an ErrTooFewSuccesses error the result so
+// far is returned too: the counts, samples and failures, and (with 2 or more successes) the
+// mean and standard deviation of the successful samples, without percentiles. Run returns an
+// error naming the field for invalid settings, an empty Inputs or a nil f.
 func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error) {
 	s, err := mc.validate()
 	if err != nil {

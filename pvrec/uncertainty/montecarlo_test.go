@@ -11,6 +11,9 @@ import (
 	"gonum.org/v1/gonum/stat"
 	"gonum.org/v1/gonum/stat/distuv"
 
+	"github.com/pvrec/pvrec/pvrec/j0"
+	"github.com/pvrec/pvrec/pvrec/profile"
+	"github.com/pvrec/pvrec/pvrec/silicon"
 	"github.com/pvrec/pvrec/pvrec/uncertainty"
 )
 
@@ -255,4 +258,37 @@ func TestMonteCarloBadSettings(t *testing.T) {
 	if _, err := empty.Input(0); err == nil {
 		t.Errorf("Input(0) of an empty result: no error")
 	}
+}
+
+// TestMonteCarloJ0InvalidDensity: a J0 Monte Carlo whose surface-density distribution has
+// 2.3 % of its mass below zero (invented uncertainty): the failing samples form one group
+// (their messages differ only in the offending value) counting every failure.
+func TestMonteCarloJ0InvalidDensity(t *testing.T) {
+	models, err := j0.DefaultModels(300)
+	if err != nil {
+		t.Fatal(err)
+	}
+	solver := j0.NewSolver(models)
+	mc := uncertainty.MonteCarlo{
+		Inputs:     []uncertainty.Input{{Name: "surface density", Unit: "cm^-3", Dist: distuv.Normal{Mu: 1e20, Sigma: 0.5e20}}},
+		Seed:       5,
+		MaxSamples: 512,
+	}
+	r, err := mc.Run(func(x []float64) (float64, error) {
+		res, err := solver.Solve(j0.Region{
+			Profile: profile.Sum{profile.Erfc{Dopant: silicon.Donor, Surface: x[0], Length: 0.36e-4}, profile.Uniform{Dopant: silicon.Acceptor, N: 1.5e16}},
+			Surface: j0.FixedS(1e4),
+		})
+		return res.J0, err
+	})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if r.Failed == 0 || len(r.Failures) != 1 || r.Failures[0].Count != r.Failed || r.N+r.Failed != 512 {
+		t.Fatalf("failed %d, groups %v", r.Failed, r.Failures)
+	}
+	if x, _ := mc.Draw(r.Failures[0].First); x[0] > 0 {
+		t.Errorf("first failure at surface density %g", x[0])
+	}
+	t.Logf("%s", r.Failures[0])
 }

@@ -29,7 +29,7 @@ type SpreadResult struct {
 	DefaultRank     int            // 1 + the number of successful members with a smaller result (1: the default is the smallest); 0 if Default is −1
 	DefaultPosition float64        // (DefaultValue − Min)/(Max − Min), in [0, 1]; 0 if Max = Min or Default is −1
 	Failed          int            // members that returned an error
-	Failures        []Failure      // the failed members grouped by message, most frequent first
+	Failures        []Failure      // the failed members grouped by message (numbers aside), most frequent first
 }
 
 // errNoMembers is returned by Spread for an empty family.
