@@ -21,8 +21,7 @@ import (
 // inverse transform from this package's seeded streams.
 type Distribution interface {
 	Quantile(p float64) float64 // the value below which a fraction p of the distribution lies
-	Mean() float64              // the mean
-	StdDev() float64            // the standard deviation
+	StdDev() float64            // the standard deviation (used by Sensitivity for the variance shares)
 }
 
 // Input is an uncertain input of a computation: a name, its unit and its distribution. For
