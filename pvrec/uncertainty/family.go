@@ -70,13 +70,14 @@ type Case struct {
 //     295–305 K, Richter2012, Trupke2003 and KerrCuevas2002 290–310 K) is left out, as is any
 //     model set whose ModelSet.At fails at c.T;
 //   - the hand-calculation models (FixedGap, FixedNi, NoNarrowing, ConstantMobility,
-//     ConstantAuger, ConstantRadiative other than Kerr and Cuevas's) and the models that are not
-//     intrinsic recombination alone or hold only at low injection (DziewiorSchmid1977, whose
-//     constant coefficients the catalogue pairs with no radiative model; Altermatt1997, low
-//     injection only; SRH defects) are not members.
+//     ConstantAuger, ConstantRadiative other than Kerr and Cuevas's) are not members, nor are
+//     DziewiorSchmid1977 and Altermatt1997 (Auger models without a published radiative partner
+//     in the catalogue's pairings; Altermatt1997 also holds at low injection only) and SRH
+//     defects (not intrinsic recombination).
 //
-// The apparent BGN models were extracted with an ni of their own; they are combined here with
-// every ni model, as is common practice (no source), so that the family shows that choice too.
+// An apparent BGN shifts with the ni assumed when it was extracted (see
+// KlaassenSlotboomDeGraaff1992); the apparent models are combined here with every ni model
+// nevertheless, as is common practice (no source), so that the family shows that choice too.
 // A family of one's own is a []Member built by hand.
 //
 // Members returns an error naming the field for an invalid c (T not finite and > 0, Dopant
