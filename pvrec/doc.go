@@ -28,6 +28,9 @@
 //     ideal-diode voltages.
 //   - sweep: concurrent evaluation over an index range, results in input order, panics
 //     turned into errors (no physics; used by j0 and the notebooks).
+//   - uncertainty: how sure a result is: its spread over the published model family, Monte
+//     Carlo propagation of input distributions, elasticities and tornado data (beside sweep;
+//     any computation from floor 4 up, as the caller's function).
 //   - plots: figure builders on gonum/plot with one house style (lines, bar charts).
 //   - nb: display helpers for GoNB notebooks.
 //

@@ -21,6 +21,9 @@ import (
 	"github.com/pvrec/pvrec/pvrec/silicon"
 	"github.com/pvrec/pvrec/pvrec/spectroscopy"
 	"github.com/pvrec/pvrec/pvrec/surface"
+	"github.com/pvrec/pvrec/pvrec/uncertainty"
+
+	"gonum.org/v1/gonum/stat/distuv"
 )
 
 // entry is a registered entry point with its function value (nil if Skip is set).
@@ -559,7 +562,15 @@ func fixtures(t *testing.T) []any {
 	specOpt := spectroscopy.Options{Ref: recomb.FromConduction, EtPoints: 20, KPoints: 20, Starts: []spectroscopy.Start{{Et: 0.3, K: 2}}}
 	specResult := must(spectroscopy.Fit([]spectroscopy.Curve{specCurve}, specOpt)).(spectroscopy.Result)
 	specLine := must(spectroscopy.Linearise(specCurve, silicon.NewGreen1990ThermalVelocity())).(spectroscopy.Line)
+	uncCase := uncertainty.Case{T: 300, Dopant: silicon.Donor}
+	members := must(uncertainty.Members(uncCase)).([]uncertainty.Member)
+	uncInputs := []uncertainty.Input{{Name: "w", Unit: "cm", Dist: distuv.Normal{Mu: 180e-4, Sigma: 5e-4}}, {Name: "s", Unit: "cm/s", Dist: distuv.LogNormal{Mu: 2, Sigma: 0.2}}}
+	mc := uncertainty.MonteCarlo{Inputs: uncInputs, Seed: 1, MaxSamples: 300}
+	mcResult := must(mc.Run(func(x []float64) (float64, error) { return x[0] / x[1], nil })).(uncertainty.MCResult)
+	spreadResult := must(uncertainty.Spread(members[:4], 0, func(m uncertainty.Member) (float64, error) { return float64(len(m.Name)), nil })).(uncertainty.SpreadResult)
 	return []any{
+		uncCase, members, members[0], uncInputs, uncInputs[0], mc, mcResult, spreadResult,
+		uncertainty.Sensitivity{Inputs: uncInputs}, distuv.Normal{Mu: 1, Sigma: 0.1},
 		sample, trace, analysis, result, table, optics, jv, lifetime.J0sOptions{},
 		specCurve, []spectroscopy.Curve{specCurve}, specOpt, specResult, specLine, spectroscopy.Start{Et: 0.3, K: 2},
 		design, device, design.Base, design.Front[0],

@@ -22,7 +22,7 @@ import (
 //go:generate go run ./gen
 
 // Packages are the numerical packages the battery walks, relative to the pvrec folder.
-var Packages = []string{"fermi", "silicon", "recomb", "surface", "profile", "j0", "lifetime", "spectroscopy", "cell", "sweep"}
+var Packages = []string{"fermi", "silicon", "recomb", "surface", "profile", "j0", "lifetime", "spectroscopy", "cell", "sweep", "uncertainty"}
 
 // Entry is one exported function or method of a package.
 type Entry struct {

@@ -12,6 +12,7 @@ import (
 	"github.com/pvrec/pvrec/pvrec/silicon"
 	"github.com/pvrec/pvrec/pvrec/spectroscopy"
 	"github.com/pvrec/pvrec/pvrec/surface"
+	"github.com/pvrec/pvrec/pvrec/uncertainty"
 )
 
 // registry holds every entry point of List, with its function value.
@@ -362,4 +363,17 @@ var registry = []entry{
 	{Entry: Entry{Pkg: "surface", Expr: "(surface.UShapedDit).String", Name: "surface.UShapedDit.String", AllowInf: false}, fn: (surface.UShapedDit).String},
 	{Entry: Entry{Pkg: "surface", Expr: "(surface.UShapedDit).Validate", Name: "surface.UShapedDit.Validate", AllowInf: false}, fn: (surface.UShapedDit).Validate},
 	{Entry: Entry{Pkg: "sweep", Expr: "sweep.Run", Name: "sweep.Run", AllowInf: false, Skip: "generic"}},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Elasticities", Name: "uncertainty.Elasticities", AllowInf: false}, fn: uncertainty.Elasticities},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.Failure).String", Name: "uncertainty.Failure.String", AllowInf: false}, fn: (uncertainty.Failure).String},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MCResult).Input", Name: "uncertainty.MCResult.Input", AllowInf: false}, fn: (uncertainty.MCResult).Input},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MCResult).Quantile", Name: "uncertainty.MCResult.Quantile", AllowInf: false}, fn: (uncertainty.MCResult).Quantile},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MCResult).String", Name: "uncertainty.MCResult.String", AllowInf: false}, fn: (uncertainty.MCResult).String},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MCResult).Values", Name: "uncertainty.MCResult.Values", AllowInf: false}, fn: (uncertainty.MCResult).Values},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Members", Name: "uncertainty.Members", AllowInf: false}, fn: uncertainty.Members},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MonteCarlo).Draw", Name: "uncertainty.MonteCarlo.Draw", AllowInf: false}, fn: (uncertainty.MonteCarlo).Draw},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MonteCarlo).Run", Name: "uncertainty.MonteCarlo.Run", AllowInf: false}, fn: (uncertainty.MonteCarlo).Run},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.Sensitivity).Run", Name: "uncertainty.Sensitivity.Run", AllowInf: false}, fn: (uncertainty.Sensitivity).Run},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.SensitivityResult).String", Name: "uncertainty.SensitivityResult.String", AllowInf: false}, fn: (uncertainty.SensitivityResult).String},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Spread", Name: "uncertainty.Spread", AllowInf: false}, fn: uncertainty.Spread},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.SpreadResult).String", Name: "uncertainty.SpreadResult.String", AllowInf: false}, fn: (uncertainty.SpreadResult).String},
 }

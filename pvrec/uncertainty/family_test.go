@@ -1,0 +1,101 @@
+package uncertainty_test
+
+import (
+	"reflect"
+	"strings"
+	"testing"
+
+	"github.com/pvrec/pvrec/pvrec/recomb"
+	"github.com/pvrec/pvrec/pvrec/silicon"
+	"github.com/pvrec/pvrec/pvrec/uncertainty"
+)
+
+// TestMembers: the family's size, its default member and the exclusion rules hold for every
+// member (the rules are those of Members' doc comment and docs/model-catalogue.md).
+func TestMembers(t *testing.T) {
+	for _, c := range []struct {
+		c    uncertainty.Case
+		want int
+	}{
+		{uncertainty.Case{T: 300, Dopant: silicon.Donor}, 4 * 4 * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Donor, Arsenic: true}, 4 * 4 * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor}, 4 * 3 * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor, SkipRecombination: true}, 4 * 3 * 2},
+		// 308 K: no Altermatt2003 (300 K only) and no Masetti1983 (295–305 K).
+		{uncertainty.Case{T: 308, Dopant: silicon.Donor}, 3 * 4 * 1 * 2},
+		// 350 K: Couderc2014 and SproulGreen1991 (275–375 K); Klaassen1992; no recombination.
+		{uncertainty.Case{T: 350, Dopant: silicon.Donor, SkipRecombination: true}, 2 * 4 * 1},
+	} {
+		ms, err := uncertainty.Members(c.c)
+		if err != nil {
+			t.Fatalf("%+v: %v", c.c, err)
+		}
+		if len(ms) != c.want {
+			t.Errorf("%+v: %d members, want %d", c.c, len(ms), c.want)
+		}
+		names := map[string]bool{}
+		defaults := 0
+		for i, m := range ms {
+			if names[m.Name] {
+				t.Errorf("%+v: name %q twice", c.c, m.Name)
+			}
+			names[m.Name] = true
+			if m.Default {
+				defaults++
+				if i != 0 {
+					t.Errorf("%+v: default member at %d, want 0", c.c, i)
+				}
+			}
+			_, schenk := m.Set.BGN.(silicon.Schenk1998)
+			if schenk != (m.Set.Statistics == silicon.FermiDirac) {
+				t.Errorf("%+v: %s: BGN %T with %v statistics", c.c, m.Name, m.Set.BGN, m.Set.Statistics)
+			}
+			if _, ok := m.Set.BGN.(silicon.DelAlamoSwanson1987); ok && c.c.Dopant != silicon.Donor {
+				t.Errorf("%+v: %s: n-type BGN for a p+ case", c.c, m.Name)
+			}
+			if mob, ok := m.Set.Mobility.(silicon.Masetti1983); ok && (mob == silicon.NewMasetti1983Arsenic()) != c.c.Arsenic {
+				t.Errorf("%+v: %s: Masetti electron set %v", c.c, m.Name, mob)
+			}
+			pair := recomb.Intrinsic{Auger: m.Auger, Radiative: m.Radiative}
+			if c.c.SkipRecombination {
+				if m.Auger != nil || m.Radiative != nil {
+					t.Errorf("%+v: %s: recombination set", c.c, m.Name)
+				}
+			} else if !reflect.DeepEqual(pair, recomb.NewIntrinsic()) && !reflect.DeepEqual(pair, recomb.NewKerrCuevas2002Intrinsic()) {
+				t.Errorf("%+v: %s: unpublished pair %v", c.c, m.Name, pair)
+			}
+			if _, err := m.Set.At(c.c.T); err != nil {
+				t.Errorf("%+v: %s: %v", c.c, m.Name, err)
+			}
+		}
+		if defaults != 1 {
+			t.Errorf("%+v: %d default members", c.c, defaults)
+		}
+		def := ms[0]
+		if !reflect.DeepEqual(def.Set, silicon.DefaultModelSet()) {
+			t.Errorf("%+v: default set %v", c.c, def.Set)
+		}
+		if !c.c.SkipRecombination && (!reflect.DeepEqual(def.Auger, recomb.Mechanism(recomb.NewRichter2012())) || !reflect.DeepEqual(def.Radiative, recomb.Mechanism(recomb.NewTrupke2003()))) {
+			t.Errorf("%+v: default recombination %v + %v", c.c, def.Auger, def.Radiative)
+		}
+	}
+}
+
+// TestMembersErrors: an invalid case is an error naming the field; a temperature at which no
+// recombination pair holds is an error that says why.
+func TestMembersErrors(t *testing.T) {
+	for _, c := range []struct {
+		c    uncertainty.Case
+		want string
+	}{
+		{uncertainty.Case{}, "Case.T"},
+		{uncertainty.Case{T: 300}, "Case.Dopant"},
+		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor, Arsenic: true}, "Case.Arsenic"},
+		{uncertainty.Case{T: 350, Dopant: silicon.Donor}, "no intrinsic-recombination pair"},
+		{uncertainty.Case{T: 1000, Dopant: silicon.Donor}, "no material model set is valid"},
+	} {
+		if _, err := uncertainty.Members(c.c); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%+v: error %v, want %q", c.c, err, c.want)
+		}
+	}
+}
