@@ -17,6 +17,8 @@
 //     2007), L = 2 sqrt(D t);
 //   - Sum: a superposition, e.g. Sum{Erfc{...}, Uniform{...}} for a diffusion on a wafer of
 //     either type;
+//   - Scaled: a profile with recalibrated density and depth scales (a calibration factor, a
+//     depth-scale error, a shift or an etch-back), for the uncertainty of a measured profile;
 //   - Tabulated: measured densities interpolated linearly in log density (gonum
 //     interp.PiecewiseLinear), noise and non-monotonic values kept as measured.
 //

@@ -48,3 +48,23 @@ func ExampleSheetResistance() {
 	// Output:
 	// Rsh = 20.4 Ω/sq, layer to 0.77 µm
 }
+
+// A measured profile whose density calibration is 10 % high and whose depth scale is 5 %
+// short: the scaled layer's dose is 1.1 × 1.05 times the measured one (invented emitter).
+func ExampleScaled() {
+	measured := profile.Erfc{Dopant: silicon.Donor, Surface: 1e20, Length: 0.3e-4}
+	s := profile.Scaled{Profile: measured, Density: 1.1, Stretch: 1.05}
+	d0, err := measured.Dose()
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	d1, err := profile.Dose(s, silicon.Donor, 0, s.Extent())
+	if err != nil {
+		fmt.Println(err)
+		return
+	}
+	fmt.Printf("dose %.3g -> %.3g cm^-2 (ratio %.3f)\n", d0, d1, d1/d0)
+	// Output:
+	// dose 1.69e+15 -> 1.95e+15 cm^-2 (ratio 1.155)
+}

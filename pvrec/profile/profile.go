@@ -9,7 +9,7 @@ import (
 )
 
 // Profile is a doping profile: the donor and acceptor densities of silicon versus the depth x
-// below the front surface (x = 0). Uniform, Erfc, Gaussian, Sum and Tabulated implement it;
+// below the front surface (x = 0). Uniform, Erfc, Gaussian, Sum, Scaled and Tabulated implement it;
 // a user type may too.
 type Profile interface {
 	// Dopants returns the donor and acceptor densities nd, na in cm^-3 at depth x in cm
@@ -322,6 +322,15 @@ func searchPoints(p Profile) (xs []float64, known bool) {
 			xs = append(xs, k...)
 		}
 		return xs, true
+	case Scaled:
+		if v.validate() != nil {
+			return nil, false
+		}
+		k, ok := searchPoints(v.Profile)
+		if !ok {
+			return nil, false
+		}
+		return v.mapDepths(k), true
 	}
 	return nil, false
 }
@@ -341,6 +350,11 @@ func knots(p Profile) []float64 {
 			k = append(k, knots(t)...)
 		}
 		return k
+	case Scaled:
+		if v.validate() != nil {
+			return nil
+		}
+		return v.mapDepths(knots(v.Profile))
 	}
 	return nil
 }
