@@ -258,7 +258,8 @@ type View struct {
 // values with a one-line note that the controls are live in an interactive session, and
 // returns at once: it sends nothing to the browser side, so no wait and no browser script are
 // left in the saved notebook. Run decides which case it is in from the process that started
-// the GoNB kernel (the environment variable JPY_PARENT_PID): a Jupyter server (jupyter-lab,
+// the GoNB kernel (the environment variable JPY_PARENT_PID, its command line read from /proc,
+// so on systems without /proc set PVREC_LIVE=1 for live controls): a Jupyter server (jupyter-lab,
 // jupyter-notebook, jupyter-server, jupyter-nbclassic, jupyterhub-singleuser) serves
 // browsers; anything else (nbconvert, nbclient, papermill) does not. The environment variable
 // PVREC_LIVE=0 forces the headless rendering, PVREC_LIVE=1 the interactive one. Even in a

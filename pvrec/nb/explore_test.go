@@ -458,3 +458,26 @@ func TestExploreNoAnswer(t *testing.T) {
 		t.Errorf("no fallback note: %v", byID)
 	}
 }
+
+// FuzzParsePositions: whatever the browser side sends, positions are either refused or within
+// the controls' ranges.
+func FuzzParsePositions(f *testing.F) {
+	for _, s := range []string{"20,0", "0,1", "", ",", "1,2,3", "-1,0", "999999999999999999999,0", "+3,1", " 2,1"} {
+		f.Add(s)
+	}
+	cs, err := Explore{Controls: testControls, Draw: testDraw(nil)}.controls()
+	if err != nil {
+		f.Fatal(err)
+	}
+	f.Fuzz(func(t *testing.T, msg string) {
+		p, err := parsePositions(msg, cs)
+		if err != nil {
+			return
+		}
+		for i, k := range p {
+			if k < 0 || k >= len(cs[i].labels) {
+				t.Fatalf("%q: position %d of control %d out of range", msg, k, i)
+			}
+		}
+	})
+}
