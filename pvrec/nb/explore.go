@@ -500,7 +500,7 @@ func parsePositions(msg string, cs []control) ([]int, error) {
 	for i, s := range f {
 		k, err := strconv.Atoi(s)
 		if err != nil || k < 0 || k >= len(cs[i].labels) {
-			return nil, fmt.Errorf("nb: Explore: the browser sent position %q for control %q, which has %d", s, cs[i].name, len(cs[i].labels))
+			return nil, fmt.Errorf("nb: Explore: the browser sent position %q for control %q, which has %d positions", s, cs[i].name, len(cs[i].labels))
 		}
 		p[i] = k
 	}
@@ -513,8 +513,9 @@ func (e Explore) interact(first Values, area string) {
 	addr := "/pvrec/explore/" + uid
 	ctlID, figID := "pvrec_explore_ctl_"+uid, "pvrec_explore_fig_"+uid
 	m := &messages{seq: 0, ready: make(chan struct{}, 1)}
-	// Never unsubscribed: the subscription ends with the cell's program, and GoNB v0.11.1's
-	// Unsubscribe can leave its lock held.
+	// Never unsubscribed: the subscription ends with the cell's program. In GoNB v0.11.1 a value
+	// arriving for an address without subscribers returns from comms.dispatchValueUpdates with
+	// its lock held, which would block every later comms call of the cell.
 	comms.Subscribe(addr, func(_ string, v string) { m.put(v) })
 	js, err := controlsHTML(first, uid, addr)
 	if err != nil { // a bug in the template: show the initial state
