@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"github.com/pvrec/pvrec/pvrec/nb"
+	"github.com/pvrec/pvrec/pvrec/plots"
 )
 
 // Build the HTML of a small results table; in a notebook, nb.Table displays it directly.
@@ -25,5 +26,31 @@ func ExampleColumnsCSV() {
 	// Δn (cm⁻³),τeff (µs)
 	// 1e+14,1200
 	// 1e+15,950
+	// <nil>
+}
+
+// An exploration with one log slider. In a notebook open in a browser, moving the slider
+// redraws the figure in place; outside GoNB (as here) and in a headless run, Run draws the
+// initial values once and returns.
+func ExampleExplore() {
+	e := nb.Explore{
+		Controls: []nb.Control{
+			nb.LogSlider{Name: "Dit", Unit: "cm⁻² eV⁻¹", Min: 1e10, Max: 1e13, Value: 1e11, Steps: 30},
+		},
+		Draw: func(v nb.Values) (nb.View, error) {
+			fmt.Println("drawing at", v)
+			s, err := plots.Func("Seff", []float64{1e14, 1e16}, func(dn float64) (float64, error) {
+				return 1e-10 * v.Get("Dit"), nil // an invented proportionality, for the example
+			})
+			if err != nil {
+				return nb.View{}, err
+			}
+			p, err := plots.Lines(plots.Axes{XLabel: "Δn (cm^-3)", YLabel: "Seff (cm/s)", LogX: true}, s)
+			return nb.View{Plot: p}, err
+		},
+	}
+	fmt.Println(e.Run())
+	// Output:
+	// drawing at Dit = 1e+11 cm⁻² eV⁻¹
 	// <nil>
 }
