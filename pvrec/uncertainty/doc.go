@@ -12,6 +12,8 @@
 // packages silicon and recomb, with incompatible pairs excluded by documented rules (see
 // Members). Spread(members, workers, f) evaluates f for each Member concurrently and reports
 // each result, the range, and the rank and position of the default member within it.
+// Swaps(members) groups the members that differ from the default in one Role only (ni, BGN,
+// mobility, recombination): the one-at-a-time model spread, which says which choice matters.
 //
 // # Monte Carlo propagation of input distributions
 //

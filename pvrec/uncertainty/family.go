@@ -23,6 +23,91 @@ type Member struct {
 	Auger     recomb.Mechanism // Auger recombination; nil: none
 	Radiative recomb.Mechanism // radiative recombination; nil: none
 	Default   bool             // the package defaults: silicon.DefaultModelSet with Richter2012 and Trupke2003, as j0.DefaultModels
+	// Choice names the model chosen for each Role, e.g. Choice[BGN] = "SlotboomDeGraaff1976
+	// (Boltzmann)"; "" for a role the member leaves open (Recombination with
+	// Case.SkipRecombination, every role of a hand-built member that does not set it).
+	Choice [NumRoles]string
+}
+
+// Role is one of the model choices a Member combines.
+type Role int
+
+// The roles of a Member, in the order of its Name.
+const (
+	Ni            Role = iota // intrinsic carrier density ni
+	BGN                       // band-gap narrowing with its statistics
+	Mobility                  // carrier mobility
+	Recombination             // intrinsic (Auger and radiative) recombination
+	NumRoles                  // the number of roles
+)
+
+// String returns the role's name, e.g. "band-gap narrowing".
+func (r Role) String() string {
+	switch r {
+	case Ni:
+		return "intrinsic density"
+	case BGN:
+		return "band-gap narrowing"
+	case Mobility:
+		return "mobility"
+	case Recombination:
+		return "intrinsic recombination"
+	}
+	return fmt.Sprintf("Role(%d)", int(r))
+}
+
+// Swap is the group of members that differ from the default member in one role only.
+type Swap struct {
+	Role    Role     // the role varied
+	Members []Member // the default member first, then each alternative in family order
+}
+
+// Swaps returns the one-at-a-time model spread of family: for each role in which some
+// member differs from the default member alone, that role's group (the default first).
+// Together they show which model choice moves a result most, with 1 + Σ(alternatives)
+// evaluations instead of the whole family's product. Members are matched by Choice. It returns
+// an error if family has no Default member or more than one, or if the default's Choice is
+// empty (a hand-built family that does not name its choices).
+func Swaps(family []Member) ([]Swap, error) {
+	def := -1
+	for i, m := range family {
+		if m.Default {
+			if def >= 0 {
+				return nil, fmt.Errorf("uncertainty: Swaps: members %d and %d are both marked Default", def, i)
+			}
+			def = i
+		}
+	}
+	if def < 0 {
+		return nil, fmt.Errorf("uncertainty: Swaps: no member of the %d is marked Default", len(family))
+	}
+	d := family[def]
+	if d.Choice == ([NumRoles]string{}) {
+		return nil, fmt.Errorf("uncertainty: Swaps: the default member %q names no Choice", d.Name)
+	}
+	var out []Swap
+	for r := Role(0); r < NumRoles; r++ {
+		g := Swap{Role: r, Members: []Member{d}}
+		for i, m := range family {
+			if i != def && differsOnlyIn(m.Choice, d.Choice, r) {
+				g.Members = append(g.Members, m)
+			}
+		}
+		if len(g.Members) > 1 {
+			out = append(out, g)
+		}
+	}
+	return out, nil
+}
+
+// differsOnlyIn reports whether a and b differ in role r and agree in every other role.
+func differsOnlyIn(a, b [NumRoles]string, r Role) bool {
+	for k := Role(0); k < NumRoles; k++ {
+		if (a[k] == b[k]) != (k != r) {
+			return false
+		}
+	}
+	return true
 }
 
 // Case is what the default family of models depends on: the temperature and the kind of the
@@ -142,11 +227,15 @@ func Members(c Case) ([]Member, error) {
 					why = append(why, err.Error())
 					continue
 				}
-				sets = append(sets, Member{
+				m := Member{
 					Name:    fmt.Sprintf("ni %s, BGN %s (%s), μ %s", ni, b.bgn, b.stat, mob),
 					Set:     ms,
 					Default: niDef && i == 0 && j == 0 && mobDef && k == 0,
-				})
+				}
+				m.Choice[Ni] = fmt.Sprint(ni)
+				m.Choice[BGN] = fmt.Sprintf("%s (%s)", b.bgn, b.stat)
+				m.Choice[Mobility] = fmt.Sprint(mob)
+				sets = append(sets, m)
 			}
 		}
 	}
@@ -169,6 +258,7 @@ func Members(c Case) ([]Member, error) {
 			m := s
 			m.Name = fmt.Sprintf("%s, %s + %s", s.Name, p.Auger, p.Radiative)
 			m.Auger, m.Radiative = p.Auger, p.Radiative
+			m.Choice[Recombination] = fmt.Sprintf("%s + %s", p.Auger, p.Radiative)
 			m.Default = s.Default && pairDef && k == 0
 			out = append(out, m)
 		}

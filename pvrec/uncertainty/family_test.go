@@ -99,3 +99,59 @@ func TestMembersErrors(t *testing.T) {
 		}
 	}
 }
+
+// TestSwaps: the one-at-a-time groups of the 300 K n+ family have the default first and
+// exactly the alternatives of each role (3 other ni models, 3 other BGN, 1 other mobility,
+// 1 other recombination pair; Members' doc), each differing from the default in that role only.
+func TestSwaps(t *testing.T) {
+	family, err := uncertainty.Members(uncertainty.Case{T: 300, Dopant: silicon.Donor})
+	if err != nil {
+		t.Fatal(err)
+	}
+	swaps, err := uncertainty.Swaps(family)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []int{4, 4, 2, 2}
+	if len(swaps) != len(want) {
+		t.Fatalf("%d groups, want %d", len(swaps), len(want))
+	}
+	for i, g := range swaps {
+		if g.Role != uncertainty.Role(i) || len(g.Members) != want[i] {
+			t.Errorf("group %d: role %v with %d members, want %v with %d", i, g.Role, len(g.Members), uncertainty.Role(i), want[i])
+		}
+		if !g.Members[0].Default {
+			t.Errorf("group %v does not start with the default member", g.Role)
+		}
+		for _, m := range g.Members[1:] {
+			for r := uncertainty.Role(0); r < uncertainty.NumRoles; r++ {
+				same := m.Choice[r] == g.Members[0].Choice[r]
+				if same == (r == g.Role) {
+					t.Errorf("group %v: member %q vs default in role %v: same = %v", g.Role, m.Name, r, same)
+				}
+			}
+		}
+	}
+	if swaps[1].Members[1].Choice[uncertainty.BGN] != "SlotboomDeGraaff1976 (Boltzmann)" {
+		t.Errorf("first BGN alternative %q", swaps[1].Members[1].Choice[uncertainty.BGN])
+	}
+	// Without recombination the family has three roles.
+	mat, err := uncertainty.Members(uncertainty.Case{T: 300, Dopant: silicon.Donor, SkipRecombination: true})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if s, err := uncertainty.Swaps(mat); err != nil || len(s) != 3 {
+		t.Errorf("material-only family: %d groups, err %v; want 3", len(s), err)
+	}
+	// Errors: no default, two defaults, a default without choices.
+	two := append([]uncertainty.Member(nil), family[:2]...)
+	two[1].Default = true
+	for name, f := range map[string][]uncertainty.Member{
+		"empty": nil, "no default": family[1:], "two defaults": two,
+		"no choices": {{Name: "hand-built", Default: true}},
+	} {
+		if _, err := uncertainty.Swaps(f); err == nil {
+			t.Errorf("%s: no error", name)
+		}
+	}
+}

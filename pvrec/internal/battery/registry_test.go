@@ -375,8 +375,10 @@ var registry = []entry{
 	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Members", Name: "uncertainty.Members", AllowInf: false}, fn: uncertainty.Members},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MonteCarlo).Draw", Name: "uncertainty.MonteCarlo.Draw", AllowInf: false}, fn: (uncertainty.MonteCarlo).Draw},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.MonteCarlo).Run", Name: "uncertainty.MonteCarlo.Run", AllowInf: false}, fn: (uncertainty.MonteCarlo).Run},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.Role).String", Name: "uncertainty.Role.String", AllowInf: false}, fn: (uncertainty.Role).String},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.Sensitivity).Run", Name: "uncertainty.Sensitivity.Run", AllowInf: false}, fn: (uncertainty.Sensitivity).Run},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.SensitivityResult).String", Name: "uncertainty.SensitivityResult.String", AllowInf: false}, fn: (uncertainty.SensitivityResult).String},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Spread", Name: "uncertainty.Spread", AllowInf: false}, fn: uncertainty.Spread},
 	{Entry: Entry{Pkg: "uncertainty", Expr: "(uncertainty.SpreadResult).String", Name: "uncertainty.SpreadResult.String", AllowInf: false}, fn: (uncertainty.SpreadResult).String},
+	{Entry: Entry{Pkg: "uncertainty", Expr: "uncertainty.Swaps", Name: "uncertainty.Swaps", AllowInf: false}, fn: uncertainty.Swaps},
 }
