@@ -1,14 +1,15 @@
-// Command published-curves draws the curves of published parameterisations the way their
-// papers plot them, from pvrec's models at 300 K, at a journal's column width (plots.Column,
+// Command published-curves draws the curves of published parameterisations in the form their
+// papers show them, from pvrec's models at 300 K, at a journal's column width (plots.Column,
 // 8.5 cm × 6.4 cm), as PDF and as TikZ/pgf (.tex, for \input in a manuscript):
 //
 //   - intrinsic-lifetime: the intrinsic lifetime versus excess carrier density of n-type
-//     silicon at three dopings on log–log axes, as A. Richter, S. W. Glunz, F. Werner,
-//     J. Schmidt and A. Cuevas, Phys. Rev. B 86, 165202 (2012) plot it: their Auger
+//     silicon at three dopings on log–log axes, the form in which A. Richter, S. W. Glunz,
+//     F. Werner, J. Schmidt and A. Cuevas, Phys. Rev. B 86, 165202 (2012) show it: their Auger
 //     parameterisation with the radiative term B_low of T. Trupke et al., J. Appl. Phys. 94,
 //     4930 (2003) (with B_rel = 1: pvrec ships no B_rel model), beside the earlier
-//     parameterisation of M. J. Kerr and A. Cuevas, J. Appl. Phys. 91, 2473 (2002), dashed;
-//   - bandgap-narrowing: ΔEg versus donor density for every BGN model in package silicon:
+//     parameterisation of M. J. Kerr and A. Cuevas, J. Appl. Phys. 91, 2473 (2002), in short
+//     dashes;
+//   - bandgap-narrowing: ΔEg versus dopant density for every BGN model in package silicon:
 //     the physical BGN of A. Schenk, J. Appl. Phys. 84, 3684 (1998), at thermal equilibrium
 //     with Fermi–Dirac statistics (n- and p-type), and the apparent BGN (fitted with Boltzmann
 //     statistics) of J. W. Slotboom and H. C. de Graaff, Solid-State Electron. 19, 857 (1976),
@@ -19,7 +20,7 @@
 //   - majority-mobility: electron (n-type) and hole (p-type) majority-carrier mobility versus
 //     dopant density of D. B. M. Klaassen, Solid-State Electron. 35, 953 (1992), and
 //     G. Masetti, M. Severi and S. Solmi, IEEE Trans. Electron Devices 30, 764 (1983)
-//     (phosphorus and boron), dashed.
+//     (phosphorus and boron), in short dashes.
 //
 // The dopings, ranges and axis scales are our choice, not copied from the papers' figures.
 // Run from the repository root:
@@ -27,7 +28,8 @@
 //	go run ./docs/examples/published-curves -out out/published-curves
 //
 // It writes NAME.pdf and NAME.tex for each figure into the output folder (out/ is not
-// tracked) and prints, per figure, the provenance line for its caption.
+// tracked) and prints, per figure, a caption: what is drawn, and the provenance line (pvrec's
+// version and the model sets).
 package main
 
 import (
@@ -64,7 +66,7 @@ func main() {
 }
 
 // figure is one figure of the command: its file name (without extension), the figure, and
-// the provenance line for its caption.
+// its caption: what is drawn, then the provenance line.
 type figure struct {
 	name    string
 	fig     plots.Figure
@@ -88,7 +90,7 @@ func run(dir string, w io.Writer) error {
 			}
 			fmt.Fprintln(w, path)
 		}
-		fmt.Fprintf(w, "  %s\n", f.caption)
+		fmt.Fprintf(w, "  %s\n", strings.ReplaceAll(f.caption, "\n", "\n  "))
 	}
 	return nil
 }
@@ -106,13 +108,14 @@ func figures() ([]figure, error) {
 	return figs, nil
 }
 
-// column wraps one plot as a figure at the journal column width.
-func column(name string, p *plot.Plot, models ...fmt.Stringer) figure {
+// column wraps one plot as a figure at the journal column width, with a caption of the note
+// and a provenance line naming pvrec's version and the models.
+func column(name string, p *plot.Plot, note string, models ...fmt.Stringer) figure {
 	parts := []string{"pvrec " + pvrec.Version}
 	for _, m := range models {
 		parts = append(parts, m.String())
 	}
-	return figure{name: name, fig: plots.Figure{Panels: []*plot.Plot{p}, Preset: plots.Column}, caption: strings.Join(parts, " · ")}
+	return figure{name: name, fig: plots.Figure{Panels: []*plot.Plot{p}, Preset: plots.Column}, caption: note + "\n" + strings.Join(parts, " · ")}
 }
 
 // material returns the default model set at 300 K with the given changes applied.
@@ -159,6 +162,7 @@ func intrinsicCurves(si *silicon.Material, dn []float64) ([]plots.Series, error)
 	return append(richter, kerr...), nil
 }
 
+// intrinsicFigure is the intrinsic-lifetime figure: Δn from 1e13 to 1e18 cm^-3, 10 points a decade.
 func intrinsicFigure() (figure, error) {
 	si, err := material(nil)
 	if err != nil {
@@ -172,7 +176,8 @@ func intrinsicFigure() (figure, error) {
 	if err != nil {
 		return figure{}, err
 	}
-	return column("intrinsic-lifetime", p, si, recomb.NewIntrinsic(), recomb.NewKerrCuevas2002Intrinsic()), nil
+	note := "Intrinsic lifetime of n-type Si at 300 K: Richter et al. 2012 with Trupke's B_low (B_rel = 1), and Kerr and Cuevas 2002 in short dashes."
+	return column("intrinsic-lifetime", p, note, si, recomb.NewIntrinsic(), recomb.NewKerrCuevas2002Intrinsic()), nil
 }
 
 // bgnModel is one curve of the BGN figure: a model set's BGN and statistics, and the doping type.
@@ -227,6 +232,8 @@ func bgnCurves(n []float64) ([]plots.Series, []*silicon.Material, error) {
 	return curves, mats, nil
 }
 
+// bgnFigure is the BGN figure: dopant densities from 1e16 to 1e20 cm^-3, the range of the
+// apparent-BGN fits' data.
 func bgnFigure() (figure, error) {
 	curves, mats, err := bgnCurves(logSpan(1e16, 1e20, 60))
 	if err != nil {
@@ -240,7 +247,9 @@ func bgnFigure() (figure, error) {
 	for i, m := range mats {
 		models[i] = m
 	}
-	return column("bandgap-narrowing", p, models...), nil
+	note := "Band-gap narrowing at 300 K, thermal equilibrium: Schenk 1998 is a physical BGN (with Fermi–Dirac statistics; p-type in short dashes); " +
+		"Slotboom–de Graaff 1976, Klaassen et al. 1992 and del Alamo–Swanson 1987 (n-type) are apparent BGN (with Boltzmann statistics), which include the majority carriers' degeneracy."
+	return column("bandgap-narrowing", p, note, models...), nil
 }
 
 // mobilityModels lists the mobility models of the mobility figure, Klaassen first.
@@ -295,6 +304,8 @@ func mobilityCurves(n []float64) ([]plots.Series, []*silicon.Material, error) {
 	return curves, mats, nil
 }
 
+// mobilityFigure is the mobility figure: dopant densities from 1e13 to 1e21 cm^-3 (the models'
+// upper bound).
 func mobilityFigure() (figure, error) {
 	curves, mats, err := mobilityCurves(logSpan(1e13, 1e21, 81))
 	if err != nil {
@@ -304,5 +315,6 @@ func mobilityFigure() (figure, error) {
 	if err != nil {
 		return figure{}, err
 	}
-	return column("majority-mobility", p, mats[0], mats[1]), nil
+	note := "Majority-carrier mobility at 300 K: electrons in n-type, holes in p-type Si; Klaassen 1992, and Masetti et al. 1983 in short dashes."
+	return column("majority-mobility", p, note, mats[0], mats[1]), nil
 }

@@ -9,6 +9,7 @@ import (
 	"strings"
 	"testing"
 
+	"github.com/pvrec/pvrec/pvrec"
 	"github.com/pvrec/pvrec/pvrec/fermi"
 	"github.com/pvrec/pvrec/pvrec/plots"
 	"github.com/pvrec/pvrec/pvrec/silicon"
@@ -404,7 +405,12 @@ func TestRun(t *testing.T) {
 			t.Errorf("the command did not report %s.tex", c.name)
 		}
 	}
-	if got := strings.Count(log.String(), "pvrec "); got != 3 {
-		t.Errorf("%d caption lines, want 3:\n%s", got, log.String())
+	for _, w := range []string{"physical BGN", "apparent BGN", "Richter et al. 2012", "Masetti et al. 1983"} {
+		if !strings.Contains(log.String(), w) {
+			t.Errorf("the captions do not say %q:\n%s", w, log.String())
+		}
+	}
+	if got := strings.Count(log.String(), "pvrec "+pvrec.Version+" · Si 300.00 K"); got != 3 {
+		t.Errorf("%d provenance lines, want 3:\n%s", got, log.String())
 	}
 }
