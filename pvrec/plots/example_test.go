@@ -232,7 +232,7 @@ func ExampleTornado() {
 // The spread of a J0 over model sets, the default highlighted; the long model-set names
 // break into lines (invented values).
 func ExampleStrip() {
-	p, err := plots.Strip(plots.Axes{XLabel: "J0 (fA/cm^2)", Legend: plots.BottomRight},
+	p, err := plots.Strip(plots.Axes{XLabel: "J0 (fA/cm^2)"},
 		plots.StripGroup{Label: "BGN varied", Members: []plots.StripMember{
 			{Label: "BGN model A + FD, μ model M1, Auger model X1", Value: 31.5, Default: true},
 			{Label: "BGN model C, μ model M1, Auger model X1", Value: 36.8},

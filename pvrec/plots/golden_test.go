@@ -127,7 +127,7 @@ func goldenFigures(t *testing.T) map[string]Figure {
 		HistogramOptions{Density: true, Percentiles: []float64{2.5, 97.5}}))
 	tornado := must(Tornado(Axes{XLabel: "Voc (mV)", Legend: BottomLeft}, 712, []TornadoBar{
 		{"Qf ± 30 %", 710.5, 713.1}, {"τ_{bulk} ± 50 %", 704, 716}, {"W 160–200 µm", 713, 711}, {"Dit ×3", 708.8, 713}}))
-	strip := must(Strip(Axes{XLabel: "J0 (fA/cm^2)", Legend: BottomRight},
+	strip := must(Strip(Axes{XLabel: "J0 (fA/cm^2)"},
 		StripGroup{Label: "BGN varied", Members: []StripMember{
 			{Label: "BGN model A + FD, μ model M1, Auger model X1", Value: 31.5, Default: true},
 			{Label: "BGN model B + FD, μ model M1, Auger model X1", Value: 29.2},

@@ -257,14 +257,15 @@ func TestTornado(t *testing.T) {
 }
 
 // TestStrip checks the rows (in order from the top, groups apart), the breaking of long
-// member labels into lines that fit, the axis holding every value, the legend, and the errors.
+// member labels into lines that fit, the axis holding every value, the group headings and the
+// default's key on rows of their own above each group, and the errors.
 func TestStrip(t *testing.T) {
 	long := "BGN model A + FD, μ model M1, Auger model X1"
 	groups := []StripGroup{
 		{Label: "BGN", Members: []StripMember{{Label: long, Value: 31.5, Default: true}, {Label: "BGN model B", Value: 29}}},
 		{Label: "mobility", Members: []StripMember{{Label: "μ model M2", Value: 33}}},
 	}
-	p, err := Strip(Axes{XLabel: "J0 (fA/cm^2)", Legend: BottomRight}, groups...)
+	p, err := Strip(Axes{XLabel: "J0 (fA/cm^2)"}, groups...)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -309,6 +310,21 @@ func TestStrip(t *testing.T) {
 		if !found {
 			t.Errorf("strip SVG lacks %q", l)
 		}
+	}
+	// Each heading stands above its group's first row, below the previous group's last; the
+	// key has the top row.
+	y := map[string]float64{}
+	for _, x := range texts {
+		if _, ok := y[x.s]; !ok {
+			y[x.s] = x.y
+		}
+	}
+	// (y grows upwards in the drawing; "μ model M2" is set as "μ" and " model M2".)
+	if !(y["BGN"] > y["BGN model A + FD, "] && y["BGN model B"] > y["mobility"] && y["mobility"] > y[" model M2"]) {
+		t.Errorf("headings not on rows of their own: %v", y)
+	}
+	if !(y["default"] > y["BGN"]) {
+		t.Errorf("key at y = %g, first heading at %g: want the key's row on top", y["default"], y["BGN"])
 	}
 	// The lines of the long label, one below the other at the tick label's size.
 	for _, x := range texts {

@@ -6,6 +6,8 @@ import (
 	"math"
 	"strings"
 
+	stdfont "golang.org/x/image/font"
+
 	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
@@ -22,7 +24,7 @@ type StripMember struct {
 // StripGroup is a set of members drawn together in one colour and marker of the house cycle,
 // e.g. the model sets that vary one model.
 type StripGroup struct {
-	Label   string // legend entry, e.g. "BGN varied"; needed when there are several groups
+	Label   string // heading above the group's rows, e.g. "BGN varied"; needed when there are several groups
 	Members []StripMember
 }
 
@@ -36,8 +38,12 @@ const stripLabelWidth = 120
 // ax.LogX, in the unit ax.XLabel names. Each row has a light guide line from its label; each
 // group's range, from its smallest to its largest value, is a light band of its colour
 // behind its rows; a default member is a black diamond with a dashed line at its value
-// across its group's rows. Groups take the colours and markers of the house cycle, and with
-// several groups their labels and "default" form a legend (at ax.Legend).
+// across its group's rows. Groups take the colours and markers of the house cycle. A group's
+// label is a heading on a row of its own above the group's rows, at the left of the data
+// area; the key of the default marker has a row of its own at the top, at the right. Headings
+// and key take rows that hold no marker, so that they cover nothing at any figure size at
+// which the member labels do not overlap; ax.Legend is not used (a legend box in a corner
+// would cover rows).
 //
 // Plain member labels wider than about half a journal column (120 pt at the print size) are
 // broken into lines after ", " or "; ", and rows with more lines stand further apart, so that
@@ -63,8 +69,18 @@ func Strip(ax Axes, groups ...StripGroup) (*plot.Plot, error) {
 	xs := newSpan()
 	s := &stripPlotter{}
 	var ticks []plot.Tick
+	for _, gr := range groups {
+		for _, mb := range gr.Members {
+			s.key = s.key || mb.Default
+		}
+	}
 	pos := 0.0 // from the top
 	prevLines := 0
+	first := !s.key // the next row is the chart's first (the key's row, if any, is at 0)
+	if s.key {
+		prevLines = 1
+	}
+	gap := 0.0 // extra distance before the next group: none after the key's row
 	for g, gr := range groups {
 		if len(groups) > 1 && gr.Label == "" {
 			return nil, fmt.Errorf("plots: Strip: group %d has no label", g)
@@ -75,7 +91,15 @@ func Strip(ax Axes, groups ...StripGroup) (*plot.Plot, error) {
 		if len(gr.Members) == 0 {
 			return nil, fmt.Errorf("plots: Strip: group %d (%q) has no members", g, gr.Label)
 		}
-		sg := stripGroup{def: -1}
+		sg := stripGroup{def: -1, label: gr.Label}
+		if gr.Label != "" { // a heading row
+			if !first {
+				pos += rowStep(prevLines, 1) + gap
+			}
+			sg.head, prevLines, first = pos, 1, false
+		} else {
+			sg.head = math.NaN()
+		}
 		for m, mb := range gr.Members {
 			if mb.Label == "" {
 				return nil, fmt.Errorf("plots: Strip: group %d (%q) member %d has no label", g, gr.Label, m)
@@ -95,10 +119,12 @@ func Strip(ax Axes, groups ...StripGroup) (*plot.Plot, error) {
 			label := wrapLabel(mb.Label, vg.Points(stripLabelWidth))
 			lines := strings.Count(label, "\n") + 1
 			switch {
-			case g > 0 && m == 0:
-				pos += 0.3 + 0.35*float64(prevLines+lines) + 0.6 // the gap between groups
-			case m > 0:
-				pos += 0.3 + 0.35*float64(prevLines+lines)
+			case first:
+				first = false
+			case m == 0 && math.IsNaN(sg.head):
+				pos += rowStep(prevLines, lines) + gap
+			default:
+				pos += rowStep(prevLines, lines)
 			}
 			prevLines = lines
 			sg.pos = append(sg.pos, pos)
@@ -107,6 +133,7 @@ func Strip(ax Axes, groups ...StripGroup) (*plot.Plot, error) {
 			xs.add(mb.Value)
 		}
 		s.groups = append(s.groups, sg)
+		gap = stripGap
 	}
 	p := newPlot(ax)
 	var err error
@@ -117,45 +144,22 @@ func Strip(ax Axes, groups ...StripGroup) (*plot.Plot, error) {
 	for i := range ticks {
 		ticks[i].Value = -ticks[i].Value
 	}
-	// Room for the legend above the first row or below the last, about half a row per
-	// entry (our choice), so that it covers no marker.
-	nl := 0
-	if len(groups) > 1 {
-		nl = len(groups)
-	}
-	for _, g := range s.groups {
-		if g.def >= 0 {
-			nl++
-			break
-		}
-	}
-	room := 0.55 * float64(nl)
 	p.Y.Min, p.Y.Max = -pos-0.6, 0.6
-	if ax.Legend == TopLeft || ax.Legend == TopRight {
-		p.Y.Max += room
-	} else {
-		p.Y.Min -= room
-	}
 	p.Y.Tick.Width, p.Y.Tick.Length, p.Y.Width = 0, 0, 0
 	p.Y.Tick.Marker = plot.ConstantTicks(ticks)
 	p.X.Padding = p.Y.Tick.Label.Height("0") / 2
 	p.Add(&gridLines{sty: draw.LineStyle{Color: gridColor, Width: vg.Points(gridWidth)}, vertical: true})
 	p.Add(s)
-	var lg legendBox
-	hasDefault := false
-	for g, gr := range groups {
-		c, _, m := styleOf(g)
-		if len(groups) > 1 {
-			lg.add(gr.Label, markerThumb{m, c, vg.Points(markerSize)})
-		}
-		hasDefault = hasDefault || s.groups[g].def >= 0
-	}
-	if hasDefault {
-		lg.add("default", markerThumb{defaultMarker, color.Black, vg.Points(defaultSize)})
-	}
-	lg.addTo(p)
 	return p, nil
 }
+
+// rowStep is the distance, in row units, between the centres of adjacent rows whose labels
+// have a and b lines: stripRow for single-line labels, more for wrapped ones.
+func rowStep(a, b int) float64 { return 0.3 + 0.35*float64(a+b) }
+
+// stripGap is the extra distance, in row units, between the last row of a group and the next
+// group's first row (its heading, if it has one).
+const stripGap = 0.6
 
 // The default member's marker and its radius, pt.
 var defaultMarker = marker{shape: diamond}
@@ -200,8 +204,11 @@ func wrapLabel(s string, width vg.Length) string {
 	return strings.Join(append(lines, cur), "\n")
 }
 
-// stripGroup is a group of a strip chart: its rows' positions (from the top) and values.
+// stripGroup is a group of a strip chart: its heading, its rows' positions (from the top)
+// and values.
 type stripGroup struct {
+	label       string  // heading
+	head        float64 // position of the heading row; NaN for none
 	pos, values []float64
 	def         int // index of the default member, -1 for none
 }
@@ -209,7 +216,11 @@ type stripGroup struct {
 // stripPlotter draws the rows of a strip chart.
 type stripPlotter struct {
 	groups []stripGroup
+	key    bool // some group has a default: its key has the top row, at position 0
 }
+
+// stripInset is the distance of headings and key from the data area's sides, pt.
+const stripInset = 3
 
 // Plot draws the guide lines, the groups' ranges, the defaults' lines and the markers.
 func (s *stripPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
@@ -240,6 +251,27 @@ func (s *stripPlotter) Plot(c draw.Canvas, plt *plot.Plot) {
 			c.StrokeLine2(draw.LineStyle{Color: inkColor, Width: vg.Points(errWidth), Dashes: referenceDash}, x, bottom, x, top)
 		}
 	}
+	sty := plt.Legend.TextStyle // the house legend text, restyled with the figure (serif, mode)
+	sty.YAlign = draw.YCenter
+	in := vg.Points(stripInset)
+	for _, g := range s.groups {
+		if !math.IsNaN(g.head) && g.label != "" {
+			h := sty
+			h.XAlign = draw.XLeft
+			h.Font.Style = stdfont.StyleItalic
+			c.FillText(h, vg.Point{X: c.Min.X + in, Y: at(g.head)}, g.label)
+		}
+	}
+	if s.key {
+		k := sty
+		k.XAlign = draw.XRight
+		y := at(0)
+		const label = "default"
+		c.FillText(k, vg.Point{X: c.Max.X - in, Y: y}, label)
+		r := vg.Points(defaultSize)
+		x := c.Max.X - in - k.Width(label) - k.Width(" ") - r
+		c.DrawGlyph(draw.GlyphStyle{Color: color.Black, Shape: defaultMarker, Radius: r}, vg.Point{X: x, Y: y})
+	}
 	for i, g := range s.groups {
 		col, _, m := styleOf(i)
 		for k, v := range g.values {
@@ -264,16 +296,4 @@ func (s *stripPlotter) GlyphBoxes(plt *plot.Plot) []plot.GlyphBox {
 		}
 	}
 	return b
-}
-
-// markerThumb is the legend thumbnail of a marker.
-type markerThumb struct {
-	m      marker
-	c      color.Color
-	radius vg.Length
-}
-
-// Thumbnail draws the marker at the middle of c.
-func (t markerThumb) Thumbnail(c *draw.Canvas) {
-	c.DrawGlyph(draw.GlyphStyle{Color: t.c, Shape: t.m, Radius: t.radius}, vg.Point{X: (c.Min.X + c.Max.X) / 2, Y: (c.Min.Y + c.Max.Y) / 2})
 }
