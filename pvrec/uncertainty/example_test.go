@@ -43,9 +43,9 @@ func ExampleSpread() {
 	fmt.Printf("J0 %.1f … %.1f fA/cm²; default %.1f fA/cm², rank %d\n", r.Min, r.Max, r.DefaultValue, r.DefaultRank)
 	fmt.Println("largest:", r.Members[r.MaxIndex].Name)
 	// Output:
-	// 64 members, 0 failed
-	// J0 51.8 … 1091.2 fA/cm²; default 68.2 fA/cm², rank 14
-	// largest: ni SproulGreen1991, BGN SlotboomDeGraaff1976 (Boltzmann), μ Klaassen1992, Richter2012 + Trupke2003
+	// 20 members, 0 failed
+	// J0 51.9 … 306.4 fA/cm²; default 68.2 fA/cm², rank 10
+	// largest: ni Couderc2014, BGN KlaassenSlotboomDeGraaff1992 (Boltzmann), μ Klaassen1992, Richter2012 + Trupke2003
 }
 
 // The surface-limited lifetime τ = W/(2S) of a wafer (the limit of small S; e.g. A. B. Sproul,

@@ -23,8 +23,8 @@ type Member struct {
 	Auger     recomb.Mechanism // Auger recombination; nil: none
 	Radiative recomb.Mechanism // radiative recombination; nil: none
 	Default   bool             // the package defaults: silicon.DefaultModelSet with Richter2012 and Trupke2003, as j0.DefaultModels
-	// Choice names the model chosen for each Role, e.g. Choice[BGN] = "SlotboomDeGraaff1976
-	// (Boltzmann)"; "" for a role the member leaves open (Recombination with
+	// Choice names the model chosen for each Role, e.g. Choice[RoleBGN] = "DelAlamoSwanson1987
+	// (Boltzmann)"; "" for a role the member leaves open (RoleRecombination with
 	// Case.SkipRecombination, every role of a hand-built member that does not set it).
 	Choice [NumRoles]string
 }
@@ -34,23 +34,23 @@ type Role int
 
 // The roles of a Member, in the order of its Name.
 const (
-	Ni            Role = iota // intrinsic carrier density ni
-	BGN                       // band-gap narrowing with its statistics
-	Mobility                  // carrier mobility
-	Recombination             // intrinsic (Auger and radiative) recombination
-	NumRoles                  // the number of roles
+	RoleNi            Role = iota // intrinsic carrier density ni
+	RoleBGN                       // band-gap narrowing with its statistics
+	RoleMobility                  // carrier mobility
+	RoleRecombination             // intrinsic (Auger and radiative) recombination
+	NumRoles                      // the number of roles
 )
 
 // String returns the role's name, e.g. "band-gap narrowing".
 func (r Role) String() string {
 	switch r {
-	case Ni:
+	case RoleNi:
 		return "intrinsic density"
-	case BGN:
+	case RoleBGN:
 		return "band-gap narrowing"
-	case Mobility:
+	case RoleMobility:
 		return "mobility"
-	case Recombination:
+	case RoleRecombination:
 		return "intrinsic recombination"
 	}
 	return fmt.Sprintf("Role(%d)", int(r))
@@ -120,17 +120,19 @@ type Case struct {
 	// Radiative nil), for computations of material quantities alone (ni,eff, sheet resistance)
 	// at temperatures outside the recombination models' 290–310 K windows.
 	SkipRecombination bool
+	// Superseded adds the models that their authors' later fits supersede
+	// (SlotboomDeGraaff1976), to show what an older analysis would have given.
+	Superseded bool
 }
 
-// Members returns the default model family of case c: every combination of the published
-// models of packages silicon and recomb that is valid for c, the default member first (marked
-// Default; it is the one of j0.DefaultModels). The choices combined are
+// Members returns the default model family of case c: the combinations of the published
+// models of packages silicon and recomb that are valid for c and meaningful together, the
+// default member first (marked Default; it is the one of j0.DefaultModels). The choices are
 //
-//   - intrinsic density: Couderc2014 (default), MisiakosTsamakis1993, SproulGreen1991,
-//     Altermatt2003;
+//   - intrinsic density: Couderc2014 (default), MisiakosTsamakis1993, SproulGreen1991;
 //   - band-gap narrowing with its statistics: Schenk1998 with Fermi–Dirac (default);
-//     SlotboomDeGraaff1976, KlaassenSlotboomDeGraaff1992 and DelAlamoSwanson1987 with
-//     Boltzmann;
+//     KlaassenSlotboomDeGraaff1992 and DelAlamoSwanson1987 (n+ only) with Boltzmann; and
+//     SlotboomDeGraaff1976 with Boltzmann if c.Superseded;
 //   - mobility: Klaassen1992 (default), Masetti1983 (NewMasetti1983, or
 //     NewMasetti1983Arsenic for an arsenic donor);
 //   - intrinsic recombination: Richter2012 Auger with Trupke2003 radiative (recomb.NewIntrinsic,
@@ -138,32 +140,44 @@ type Case struct {
 //     (recomb.NewKerrCuevas2002Intrinsic);
 //
 // with the band gap (Passler2002), densities of states (Green1990DOS) and ionisation
-// (complete) of silicon.DefaultModelSet, which have no published alternative here. At 300 K
-// an n+ case has 4 × 4 × 2 × 2 = 64 members, a p+ case 48.
+// (complete) of silicon.DefaultModelSet, which have no published alternative here. Schenk1998
+// is combined with every intrinsic density, an apparent BGN with the default intrinsic density
+// only (see below). At 300 K an n+ case has (3 + 2) × 2 × 2 = 20 members (24 with
+// c.Superseded), a p+ case (3 + 1) × 2 × 2 = 16 (20).
 //
-// Exclusion rules (each documented in docs/model-catalogue.md, "Models that belong together",
-// or in the model's own doc comment):
-//   - an apparent BGN (SlotboomDeGraaff1976, KlaassenSlotboomDeGraaff1992,
-//     DelAlamoSwanson1987) is never paired with Fermi–Dirac statistics, nor Schenk1998 (a
+// The rules (each documented in docs/model-catalogue.md, "Models that belong together", or in
+// the model's own doc comment):
+//   - an apparent BGN (KlaassenSlotboomDeGraaff1992, DelAlamoSwanson1987,
+//     SlotboomDeGraaff1976) is never paired with Fermi–Dirac statistics, nor Schenk1998 (a
 //     physical BGN) with Boltzmann statistics: the degeneracy would be counted twice or not at all;
-//   - DelAlamoSwanson1987 only for a donor (n+) case: it is a fit to n-type silicon;
+//   - an apparent BGN is tied to the intrinsic density assumed when it was extracted: ni,eff²
+//     = ni² exp(ΔEg,app/kT) is what was measured. pvrec does not record which ni each
+//     extraction used, so rather than multiply an unknown, each apparent BGN appears once, with
+//     the default intrinsic density (Couderc2014, or the first valid one at c.T); the spread
+//     between the apparent models and Schenk1998 then includes that pairing's uncertainty;
+//   - SlotboomDeGraaff1976 only if c.Superseded: its authors' re-fit,
+//     KlaassenSlotboomDeGraaff1992, supersedes it (see its doc comment);
+//   - DelAlamoSwanson1987 only for a donor (n+) case: it is a fit to n-type silicon (a
+//     computation that also evaluates p-type silicon, such as a cell's base, fails with it,
+//     and Spread reports those members as failed);
+//   - Altermatt2003 is left out: at 300 K, its only temperature, it agrees with the default
+//     Couderc2014 to 0.2 % (see Couderc2014's doc comment), so it would add near-duplicates of
+//     every member and bias the default's rank;
 //   - Masetti1983's arsenic electron set only for an arsenic donor, its phosphorus set
 //     otherwise (for a p+ case it describes the minority electrons, as is common practice);
 //   - Auger and radiative models only in their published pairs, never crossed;
-//   - a model that returns an error at c.T (its temperature window: Altermatt2003 holds at
-//     300 K only, MisiakosTsamakis1993 up to 340 K, SproulGreen1991 275–375 K, Masetti1983
-//     295–305 K, Richter2012, Trupke2003 and KerrCuevas2002 290–310 K) is left out, as is any
-//     model set whose ModelSet.At fails at c.T;
+//   - a model that returns an error at c.T (its temperature window: MisiakosTsamakis1993 up
+//     to 340 K, SproulGreen1991 275–375 K, Masetti1983 295–305 K, Richter2012, Trupke2003 and
+//     KerrCuevas2002 290–310 K) is left out, as is any model set whose ModelSet.At fails at c.T;
 //   - the hand-calculation models (FixedGap, FixedNi, NoNarrowing, ConstantMobility,
 //     ConstantAuger, ConstantRadiative other than Kerr and Cuevas's) are not members, nor are
 //     DziewiorSchmid1977 and Altermatt1997 (Auger models without a published radiative partner
 //     in the catalogue's pairings; Altermatt1997 also holds at low injection only) and SRH
 //     defects (not intrinsic recombination).
 //
-// An apparent BGN shifts with the ni assumed when it was extracted (see
-// KlaassenSlotboomDeGraaff1992); the apparent models are combined here with every ni model
-// nevertheless, as is common practice (no source), so that the family shows that choice too.
-// A family of one's own is a []Member built by hand.
+// The apparent BGN models are evaluated at every doping a computation meets, also beyond the
+// densities they were fitted to (their doc comments): in emitters above about 1e20 cm^-3
+// their spread is one of extrapolations. A family of one's own is a []Member built by hand.
 //
 // Members returns an error naming the field for an invalid c (T not finite and > 0, Dopant
 // not Donor or Acceptor, Arsenic with Acceptor), and an error listing the reasons when no
@@ -183,7 +197,7 @@ func Members(c Case) ([]Member, error) {
 	// Each candidate list starts with the package default; def records whether it survived.
 	var nis []silicon.IntrinsicDensity
 	niDef := false
-	for i, ni := range []silicon.IntrinsicDensity{silicon.NewCouderc2014(), silicon.NewMisiakosTsamakis1993(), silicon.NewSproulGreen1991(), silicon.NewAltermatt2003()} {
+	for i, ni := range []silicon.IntrinsicDensity{silicon.NewCouderc2014(), silicon.NewMisiakosTsamakis1993(), silicon.NewSproulGreen1991()} {
 		if _, err := ni.Ni(c.T); err != nil {
 			why = append(why, err.Error())
 			continue
@@ -197,11 +211,13 @@ func Members(c Case) ([]Member, error) {
 	}
 	bgns := []bgnStat{
 		{silicon.NewSchenk1998(), silicon.FermiDirac},
-		{silicon.NewSlotboomDeGraaff1976(), silicon.Boltzmann},
 		{silicon.NewKlaassenSlotboomDeGraaff1992(), silicon.Boltzmann},
 	}
 	if c.Dopant == silicon.Donor {
 		bgns = append(bgns, bgnStat{silicon.NewDelAlamoSwanson1987(), silicon.Boltzmann})
+	}
+	if c.Superseded {
+		bgns = append(bgns, bgnStat{silicon.NewSlotboomDeGraaff1976(), silicon.Boltzmann})
 	}
 	masetti := silicon.NewMasetti1983()
 	if c.Arsenic {
@@ -218,8 +234,11 @@ func Members(c Case) ([]Member, error) {
 		mobs = append(mobs, mob)
 	}
 	var sets []Member // material members, recombination not yet chosen
-	for i, ni := range nis {
-		for j, b := range bgns {
+	for j, b := range bgns {
+		for i, ni := range nis {
+			if b.stat == silicon.Boltzmann && i > 0 {
+				break // an apparent BGN with the default (first valid) ni only
+			}
 			for k, mob := range mobs {
 				ms := silicon.DefaultModelSet()
 				ms.Intrinsic, ms.BGN, ms.Statistics, ms.Mobility = ni, b.bgn, b.stat, mob
@@ -232,9 +251,9 @@ func Members(c Case) ([]Member, error) {
 					Set:     ms,
 					Default: niDef && i == 0 && j == 0 && mobDef && k == 0,
 				}
-				m.Choice[Ni] = fmt.Sprint(ni)
-				m.Choice[BGN] = fmt.Sprintf("%s (%s)", b.bgn, b.stat)
-				m.Choice[Mobility] = fmt.Sprint(mob)
+				m.Choice[RoleNi] = fmt.Sprint(ni)
+				m.Choice[RoleBGN] = fmt.Sprintf("%s (%s)", b.bgn, b.stat)
+				m.Choice[RoleMobility] = fmt.Sprint(mob)
 				sets = append(sets, m)
 			}
 		}
@@ -258,7 +277,7 @@ func Members(c Case) ([]Member, error) {
 			m := s
 			m.Name = fmt.Sprintf("%s, %s + %s", s.Name, p.Auger, p.Radiative)
 			m.Auger, m.Radiative = p.Auger, p.Radiative
-			m.Choice[Recombination] = fmt.Sprintf("%s + %s", p.Auger, p.Radiative)
+			m.Choice[RoleRecombination] = fmt.Sprintf("%s + %s", p.Auger, p.Radiative)
 			m.Default = s.Default && pairDef && k == 0
 			out = append(out, m)
 		}

@@ -17,14 +17,16 @@ func TestMembers(t *testing.T) {
 		c    uncertainty.Case
 		want int
 	}{
-		{uncertainty.Case{T: 300, Dopant: silicon.Donor}, 4 * 4 * 2 * 2},
-		{uncertainty.Case{T: 300, Dopant: silicon.Donor, Arsenic: true}, 4 * 4 * 2 * 2},
-		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor}, 4 * 3 * 2 * 2},
-		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor, SkipRecombination: true}, 4 * 3 * 2},
-		// 308 K: no Altermatt2003 (300 K only) and no Masetti1983 (295–305 K).
-		{uncertainty.Case{T: 308, Dopant: silicon.Donor}, 3 * 4 * 1 * 2},
+		// (3 ni with Schenk1998 + the apparent BGN models with the default ni) × mobility × pairs.
+		{uncertainty.Case{T: 300, Dopant: silicon.Donor}, (3 + 2) * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Donor, Arsenic: true}, (3 + 2) * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Donor, Superseded: true}, (3 + 3) * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor}, (3 + 1) * 2 * 2},
+		{uncertainty.Case{T: 300, Dopant: silicon.Acceptor, SkipRecombination: true}, (3 + 1) * 2},
+		// 308 K: no Masetti1983 (295–305 K).
+		{uncertainty.Case{T: 308, Dopant: silicon.Donor}, (3 + 2) * 1 * 2},
 		// 350 K: Couderc2014 and SproulGreen1991 (275–375 K); Klaassen1992; no recombination.
-		{uncertainty.Case{T: 350, Dopant: silicon.Donor, SkipRecombination: true}, 2 * 4 * 1},
+		{uncertainty.Case{T: 350, Dopant: silicon.Donor, SkipRecombination: true}, (2 + 2) * 1},
 	} {
 		ms, err := uncertainty.Members(c.c)
 		if err != nil {
@@ -52,6 +54,20 @@ func TestMembers(t *testing.T) {
 			}
 			if _, ok := m.Set.BGN.(silicon.DelAlamoSwanson1987); ok && c.c.Dopant != silicon.Donor {
 				t.Errorf("%+v: %s: n-type BGN for a p+ case", c.c, m.Name)
+			}
+			if _, ok := m.Set.BGN.(silicon.SlotboomDeGraaff1976); ok && !c.c.Superseded {
+				t.Errorf("%+v: %s: superseded BGN without Case.Superseded", c.c, m.Name)
+			}
+			if !schenk && !reflect.DeepEqual(m.Set.Intrinsic, silicon.IntrinsicDensity(silicon.NewCouderc2014())) {
+				t.Errorf("%+v: %s: apparent BGN with ni %v, want the default only", c.c, m.Name, m.Set.Intrinsic)
+			}
+			if _, ok := m.Set.Intrinsic.(silicon.Altermatt2003); ok {
+				t.Errorf("%+v: %s: Altermatt2003, a near-duplicate of Couderc2014 at 300 K", c.c, m.Name)
+			}
+			for r := uncertainty.Role(0); r < uncertainty.NumRoles; r++ {
+				if m.Choice[r] == "" && !(r == uncertainty.RoleRecombination && c.c.SkipRecombination) {
+					t.Errorf("%+v: %s: no choice named for %v", c.c, m.Name, r)
+				}
 			}
 			if mob, ok := m.Set.Mobility.(silicon.Masetti1983); ok && (mob == silicon.NewMasetti1983Arsenic()) != c.c.Arsenic {
 				t.Errorf("%+v: %s: Masetti electron set %v", c.c, m.Name, mob)
@@ -101,7 +117,7 @@ func TestMembersErrors(t *testing.T) {
 }
 
 // TestSwaps: the one-at-a-time groups of the 300 K n+ family have the default first and
-// exactly the alternatives of each role (3 other ni models, 3 other BGN, 1 other mobility,
+// exactly the alternatives of each role (2 other ni models, 2 other BGN, 1 other mobility,
 // 1 other recombination pair; Members' doc), each differing from the default in that role only.
 func TestSwaps(t *testing.T) {
 	family, err := uncertainty.Members(uncertainty.Case{T: 300, Dopant: silicon.Donor})
@@ -112,7 +128,7 @@ func TestSwaps(t *testing.T) {
 	if err != nil {
 		t.Fatal(err)
 	}
-	want := []int{4, 4, 2, 2}
+	want := []int{3, 3, 2, 2}
 	if len(swaps) != len(want) {
 		t.Fatalf("%d groups, want %d", len(swaps), len(want))
 	}
@@ -132,8 +148,8 @@ func TestSwaps(t *testing.T) {
 			}
 		}
 	}
-	if swaps[1].Members[1].Choice[uncertainty.BGN] != "SlotboomDeGraaff1976 (Boltzmann)" {
-		t.Errorf("first BGN alternative %q", swaps[1].Members[1].Choice[uncertainty.BGN])
+	if swaps[1].Members[1].Choice[uncertainty.RoleBGN] != "KlaassenSlotboomDeGraaff1992 (Boltzmann)" {
+		t.Errorf("first BGN alternative %q", swaps[1].Members[1].Choice[uncertainty.RoleBGN])
 	}
 	// Without recombination the family has three roles.
 	mat, err := uncertainty.Members(uncertainty.Case{T: 300, Dopant: silicon.Donor, SkipRecombination: true})
