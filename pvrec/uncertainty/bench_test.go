@@ -68,3 +68,28 @@ func BenchmarkSpreadJ0(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkMonteCarloTrivial: 1e6 samples of a trivial function (the identity of a normal
+// input), the cost of the Monte Carlo machinery itself per sample: drawing, evaluation on the
+// workers, running statistics and the final percentiles. It reports ns/sample. Run with:
+// go test -run NONE -bench MonteCarloTrivial -benchtime 1x -cpu 2 ./pvrec/uncertainty/
+func BenchmarkMonteCarloTrivial(b *testing.B) {
+	const n = 1_000_000
+	mc := uncertainty.MonteCarlo{
+		Inputs:     []uncertainty.Input{{Name: "x", Dist: distuv.Normal{Mu: 1, Sigma: 0.1}}},
+		Seed:       1,
+		MaxSamples: n,
+	}
+	f := func(x []float64) (float64, error) { return x[0], nil }
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		r, err := mc.Run(f)
+		if err != nil {
+			b.Fatal(err)
+		}
+		if r.N != n {
+			b.Fatalf("%d samples", r.N)
+		}
+	}
+	b.ReportMetric(float64(b.Elapsed().Nanoseconds())/float64(b.N*n), "ns/sample")
+}

@@ -67,7 +67,14 @@ type MonteCarlo struct {
 
 	// RelTol and AbsTol are the target standard error of the mean: the run stops when
 	// StdErr <= max(AbsTol, RelTol·|Mean|). RelTol is relative (e.g. 0.001), AbsTol in the
-	// result's unit. With both 0, MaxSamples samples are drawn.
+	// result's unit. With both 0, MaxSamples samples are drawn. They control the mean only:
+	// percentiles far in the tails rest on the few samples beyond them and need many more
+	// samples. For a normal result the standard error of P2.5 or P97.5 is about 2.7 σ/√N,
+	// 2.7 times the mean's (the asymptotic variance of a sample p-quantile, p(1 − p)/(N g²),
+	// g the density there, a textbook result; value from memory), and a 95 % interval from a
+	// run stopped at ~2000 samples rests on ~50 samples in each tail; for such intervals set
+	// MaxSamples (e.g. 1e5 or more, common practice, no source) without a tolerance, or check
+	// that another Seed gives the same ends.
 	RelTol, AbsTol float64
 
 	// MinSuccess is the fraction of samples that must succeed, in (0, 1]; 0: 0.95 (our choice,
@@ -106,7 +113,7 @@ type MCResult struct {
 	Samples     []Sample     // the successful samples, in index order
 	Failed      int          // samples whose evaluation failed
 	Failures    []Failure    // the failed samples grouped by message (numbers aside), most frequent first
-	Converged   bool         // a tolerance (RelTol or AbsTol) was requested and met
+	Converged   bool         // a tolerance (RelTol or AbsTol) on the mean's standard error was requested and met (it says nothing of the percentiles)
 }
 
 // settings are the effective parameters of a run.
@@ -119,7 +126,7 @@ type settings struct {
 // validate returns the effective settings or an error naming the offending field.
 func (mc MonteCarlo) validate() (settings, error) {
 	const ctx = "uncertainty: MonteCarlo"
-	if err := validInputs(ctx, mc.Inputs); err != nil {
+	if _, err := validInputs(ctx, mc.Inputs, checkedP); err != nil {
 		return settings{}, err
 	}
 	s := settings{max: mc.MaxSamples, min: mc.MinSamples, batch: mc.Batch, minSuccess: mc.MinSuccess, percentiles: mc.Percentiles}
@@ -165,27 +172,67 @@ func (mc MonteCarlo) validate() (settings, error) {
 	return s, nil
 }
 
-// validInputs returns an error unless every input has a distribution with a finite median.
-func validInputs(ctx string, in []Input) error {
+// checkedP are the probabilities at which validInputs checks every distribution: the median
+// and the tornado's default quantiles (≈ ±1σ of a normal).
+var checkedP = []float64{defaultLow, 0.5, defaultHigh}
+
+// validInputs returns an error naming Inputs[i] unless every input has a distribution whose
+// quantiles at ps (increasing) are finite, non-decreasing (a reversed distribution such as
+// distuv.Uniform{Min: 2, Max: 1} fails) and computed without a panic (gonum's distuv panics
+// on out-of-range parameters, e.g. distuv.Beta{Alpha: 0}). It returns the quantiles, one row
+// per input. A zero-width distribution (all quantiles equal, e.g. Sigma 0) is a constant
+// input and passes.
+func validInputs(ctx string, in []Input, ps []float64) ([][]float64, error) {
 	if len(in) == 0 {
-		return fmt.Errorf("%s: Inputs is empty (no uncertain input)", ctx)
+		return nil, fmt.Errorf("%s: Inputs is empty (no uncertain input)", ctx)
 	}
+	qs := make([][]float64, len(in))
 	for i, x := range in {
 		if x.Dist == nil {
-			return fmt.Errorf("%s: Inputs[%d] (%s): Dist is nil", ctx, i, quoted(x.Name))
+			return nil, fmt.Errorf("%s: Inputs[%d] (%s): Dist is nil", ctx, i, quoted(x.Name))
 		}
-		if m := x.Dist.Quantile(0.5); math.IsNaN(m) || math.IsInf(m, 0) {
-			return fmt.Errorf("%s: Inputs[%d] (%s): the distribution's median is %g; want finite (check its parameters)", ctx, i, quoted(x.Name), m)
+		qs[i] = make([]float64, len(ps))
+		for k, p := range ps {
+			q, err := quantile(ctx, i, x, p)
+			if err != nil {
+				return nil, err
+			}
+			if k > 0 && q < qs[i][k-1] {
+				return nil, fmt.Errorf("%s: Inputs[%d] (%s): the distribution's quantile at %g is %g, below %g at %g: want non-decreasing quantiles (reversed parameters, e.g. Min > Max?)",
+					ctx, i, quoted(x.Name), p, q, qs[i][k-1], ps[k-1])
+			}
+			qs[i][k] = q
 		}
 	}
-	return nil
+	return qs, nil
+}
+
+// quantile returns Inputs[i]'s Quantile(p), or an error naming it if the distribution panics
+// (the panic becomes the error) or gives a value that is not finite.
+func quantile(ctx string, i int, in Input, p float64) (float64, error) {
+	return distCall(ctx, i, in, fmt.Sprintf("Quantile(%g)", p), func() float64 { return in.Dist.Quantile(p) })
+}
+
+// distCall returns f(), a call of Inputs[i]'s distribution named what, or an error naming the
+// input if f panics or returns a value that is not finite.
+func distCall(ctx string, i int, in Input, what string, f func() float64) (v float64, err error) {
+	defer func() {
+		if p := recover(); p != nil {
+			v, err = 0, fmt.Errorf("%s: Inputs[%d] (%s): the distribution panicked in %s: %v (check its parameters)", ctx, i, quoted(in.Name), what, p)
+		}
+	}()
+	v = f()
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return 0, fmt.Errorf("%s: Inputs[%d] (%s): the distribution's %s is %g; want finite (check its parameters)", ctx, i, quoted(in.Name), what, v)
+	}
+	return v, nil
 }
 
 // Draw returns the inputs of sample i (>= 0), in the order of Inputs: the same values Run
 // evaluates for that sample, for example to reproduce a failure (Failure.First). It returns an
 // error for invalid Inputs or i < 0, or if a distribution gives a non-finite value.
 func (mc MonteCarlo) Draw(i int) ([]float64, error) {
-	if err := validInputs("uncertainty: MonteCarlo.Draw", mc.Inputs); err != nil {
+	if _, err := validInputs("uncertainty: MonteCarlo.Draw", mc.Inputs, checkedP); err != nil {
 		return nil, err
 	}
 	if i < 0 {
@@ -207,15 +254,23 @@ func (mc MonteCarlo) draw(i int, x []float64) error {
 	// independent without a hand-made seed hash.
 	rng := rand.NewChaCha8(seed)
 	for j, in := range mc.Inputs {
-		// The open interval (0, 1): midpoints of the 2^53 equal cells, so that no quantile is
-		// taken at 0 or 1 (−Inf or +Inf for unbounded distributions).
-		u := (float64(rng.Uint64()>>11) + 0.5) * 0x1p-53
-		x[j] = in.Dist.Quantile(u)
-		if math.IsNaN(x[j]) || math.IsInf(x[j], 0) {
-			return fmt.Errorf("uncertainty: MonteCarlo: input %s: the distribution gives a non-finite value", quoted(in.Name))
+		u := openUnit(rng.Uint64())
+		v, err := quantile("uncertainty: MonteCarlo", j, in, u)
+		if err != nil {
+			return err
 		}
+		x[j] = v
 	}
 	return nil
+}
+
+// openUnit maps 64 random bits to a uniform in the open interval (0, 1): the midpoints
+// (k + 1/2)/2^52 of 2^52 equal cells, k the top 52 bits, so that no quantile is taken at 0
+// or 1 (−Inf or +Inf for unbounded distributions). With 52 bits k + 1/2 < 2^52 is exact in a
+// float64 (53-bit significand), so u lies in [2^−53, 1 − 2^−53]; with 53 bits, k + 1/2 rounds
+// for k >= 2^52 and k = 2^53 − 1 gives exactly 1.
+func openUnit(r uint64) float64 {
+	return (float64(r>>12) + 0.5) * 0x1p-52
 }
 
 // Run draws samples of the inputs, evaluates f(x) for each (concurrently on Workers
@@ -249,7 +304,7 @@ func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error)
 	}
 	tol := mc.RelTol > 0 || mc.AbsTol > 0
 	r := MCResult{Inputs: mc.Inputs}
-	var values []float64
+	var acc running
 	var failures []Failure
 	for r.Drawn < s.max {
 		start, n := r.Drawn, min(s.batch, s.max-r.Drawn)
@@ -270,16 +325,15 @@ func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error)
 				continue
 			}
 			r.Samples = append(r.Samples, smp)
-			values = append(values, smp.Value)
+			acc.add(smp.Value)
 		}
 		if errs != nil {
 			failures = groupFailures(errs, start, failures)
 		}
 		r.Drawn += n
-		r.N = len(values)
+		r.N = acc.n
 		if r.N >= 2 {
-			r.Mean, r.Std = stat.MeanStdDev(values, nil)
-			r.StdErr = r.Std / math.Sqrt(float64(r.N))
+			r.Mean, r.Std, r.StdErr = acc.stats()
 		}
 		if r.Drawn >= s.min && float64(r.N) < s.minSuccess*float64(r.Drawn) {
 			break
@@ -299,13 +353,44 @@ func (mc MonteCarlo) Run(f func(x []float64) (float64, error)) (MCResult, error)
 		return r, fmt.Errorf("%w: %d of %d samples succeeded, below MonteCarlo.MinSuccess = %g (and at least 2 are needed)%s",
 			ErrTooFewSuccesses, r.N, r.Drawn, s.minSuccess, first)
 	}
-	sorted := slices.Clone(values)
+	sorted := r.Values()
 	slices.Sort(sorted)
 	r.Percentiles = make([]Percentile, len(s.percentiles))
 	for i, p := range s.percentiles {
 		r.Percentiles[i] = Percentile{P: p, Value: stat.Quantile(p, stat.Empirical, sorted, nil)}
 	}
 	return r, nil
+}
+
+// running is the running mean and sum of squared deviations M2 of the results, updated once
+// per successful sample in index order (so the same for any number of workers) by Welford's
+// recurrence (B. P. Welford, Technometrics 4, 419 (1962)) on the results less the first one
+// (shifted data: a mean far from zero compared with the spread costs no digits, see T. F.
+// Chan, G. H. Golub and R. J. LeVeque, Am. Stat. 37, 242 (1983)). The stopping rule then
+// costs O(1) per batch, where recomputing stat.MeanStdDev over all results after each batch
+// cost O(N²) for a run. Hand-written because gonum/stat has no streaming mean and variance.
+type running struct {
+	n               int
+	shift, mean, m2 float64 // mean is that of x − shift
+}
+
+// add adds the result x.
+func (a *running) add(x float64) {
+	if a.n == 0 {
+		a.shift = x
+	}
+	a.n++
+	y := x - a.shift
+	d := y - a.mean
+	a.mean += d / float64(a.n)
+	a.m2 += d * (y - a.mean)
+}
+
+// stats returns the mean, the standard deviation (with n − 1) and the standard error of the
+// mean; n must be >= 2.
+func (a running) stats() (mean, std, stdErr float64) {
+	std = math.Sqrt(max(a.m2, 0) / float64(a.n-1))
+	return a.shift + a.mean, std, std / math.Sqrt(float64(a.n))
 }
 
 // Values returns the results of the successful samples in index order (a new slice), e.g. for

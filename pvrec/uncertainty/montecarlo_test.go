@@ -229,7 +229,7 @@ func TestMonteCarloBadSettings(t *testing.T) {
 	}{
 		{uncertainty.MonteCarlo{}, "Inputs is empty"},
 		{uncertainty.MonteCarlo{Inputs: []uncertainty.Input{{Name: "x"}}}, "Dist is nil"},
-		{uncertainty.MonteCarlo{Inputs: []uncertainty.Input{{Name: "x", Dist: distuv.Normal{Mu: math.NaN(), Sigma: 1}}}}, "median"},
+		{uncertainty.MonteCarlo{Inputs: []uncertainty.Input{{Name: "x", Dist: distuv.Normal{Mu: math.NaN(), Sigma: 1}}}}, "want finite"},
 		{uncertainty.MonteCarlo{Inputs: linearInputs, MaxSamples: -1}, "MaxSamples"},
 		{uncertainty.MonteCarlo{Inputs: linearInputs, MaxSamples: 1e8}, "MaxSamples"},
 		{uncertainty.MonteCarlo{Inputs: linearInputs, MinSamples: -1}, "MinSamples"},
@@ -291,4 +291,83 @@ func TestMonteCarloJ0InvalidDensity(t *testing.T) {
 		t.Errorf("first failure at surface density %g", x[0])
 	}
 	t.Logf("%s", r.Failures[0])
+}
+
+// TestOpenUnit: the uniforms lie strictly inside (0, 1) for the extreme random words (the
+// top 52 bits all 0 or all 1), and u(^r) = 1 − u(r) exactly (the cells' midpoints are
+// symmetric about 1/2). With 53 bits, (2^53 − 1 + 0.5)·2^−53 rounded to exactly 1.
+func TestOpenUnit(t *testing.T) {
+	for _, r := range []uint64{0, 1, 1<<12 - 1, 1 << 12, 1<<63 - 1, 1 << 63, math.MaxUint64 - 1<<12, math.MaxUint64 - 1, math.MaxUint64, 0x9e3779b97f4a7c15} {
+		u := uncertainty.OpenUnit(r)
+		if !(u > 0 && u < 1) {
+			t.Errorf("OpenUnit(%#x) = %v, want in (0, 1)", r, u)
+		}
+		if v := uncertainty.OpenUnit(^r); v != 1-u {
+			t.Errorf("OpenUnit(^%#x) = %v, want 1 − %v", r, v, u)
+		}
+	}
+	if u := uncertainty.OpenUnit(math.MaxUint64); u != 1-0x1p-53 {
+		t.Errorf("largest uniform %v, want 1 − 2^−53", u)
+	}
+	if u := uncertainty.OpenUnit(0); u != 0x1p-53 {
+		t.Errorf("smallest uniform %v, want 2^−53", u)
+	}
+}
+
+// TestMonteCarloBadDistributions: distributions with invalid parameters (gonum's distuv
+// panics on some, reverses or gives non-finite quantiles on others) are errors naming the
+// input by index and name from Run, Draw and Sensitivity.Run, never panics; a zero-width
+// input is a constant and works.
+func TestMonteCarloBadDistributions(t *testing.T) {
+	ok := func(x []float64) (float64, error) { return 1 + x[0]*x[0], nil }
+	for _, c := range []struct {
+		d    uncertainty.Distribution
+		want string
+	}{
+		{distuv.Beta{Alpha: 0, Beta: 1}, "panicked"},
+		{distuv.Gamma{Alpha: -1, Beta: 1}, "panicked"},
+		{distuv.Uniform{Min: 2, Max: 1}, "non-decreasing"},
+		{distuv.Normal{Mu: 1, Sigma: -1}, "non-decreasing"},
+		{distuv.Weibull{K: 0, Lambda: 1}, "want finite"},
+	} {
+		in := []uncertainty.Input{{Name: "good", Dist: distuv.Normal{Mu: 1, Sigma: 0.1}}, {Name: "bad", Dist: c.d}}
+		mc := uncertainty.MonteCarlo{Inputs: in, MaxSamples: 100}
+		_, err1 := mc.Run(ok)
+		_, err2 := mc.Draw(0)
+		_, err3 := uncertainty.Sensitivity{Inputs: in}.Run(ok)
+		for k, err := range []error{err1, err2, err3} {
+			if err == nil || !strings.Contains(err.Error(), `Inputs[1] ("bad")`) || !strings.Contains(err.Error(), c.want) {
+				t.Errorf("%#v, call %d: error %v, want one naming Inputs[1] (\"bad\") and %q", c.d, k, err, c.want)
+			}
+		}
+	}
+	// Zero width: a constant input, swing and variance share 0 (not NaN).
+	in := []uncertainty.Input{{Name: "a", Dist: distuv.Normal{Mu: 2, Sigma: 0.1}}, {Name: "c", Dist: distuv.Normal{Mu: 3, Sigma: 0}}}
+	f := func(x []float64) (float64, error) { return x[0] * x[1], nil }
+	r, err := uncertainty.MonteCarlo{Inputs: in, MaxSamples: 300}.Run(f)
+	if err != nil || r.Samples[0].X[1] != 3 {
+		t.Errorf("zero-width Monte Carlo: %v", err)
+	}
+	s, err := uncertainty.Sensitivity{Inputs: in}.Run(f)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if c := s.Effects[1]; c.Name != "c" || c.Share != 0 || c.Swing != 0 || s.Effects[0].Share != 1 {
+		t.Errorf("zero-width sensitivity: %+v", s.Effects)
+	}
+}
+
+// TestMonteCarloRunningStats: the running mean and standard deviation agree with gonum's
+// two-pass stat.MeanStdDev of the results, also for results with a large offset (1e9 plus a
+// spread of 1e-3, where a naive Σx² − N·mean² loses every digit).
+func TestMonteCarloRunningStats(t *testing.T) {
+	in := []uncertainty.Input{{Name: "x", Dist: distuv.Normal{Mu: 0, Sigma: 1e-3}}}
+	r, err := uncertainty.MonteCarlo{Inputs: in, Seed: 9, MaxSamples: 5000}.Run(func(x []float64) (float64, error) { return 1e9 + x[0], nil })
+	if err != nil {
+		t.Fatal(err)
+	}
+	m, s := stat.MeanStdDev(r.Values(), nil)
+	if math.Abs(r.Mean-m) > 1e-15*m || math.Abs(r.Std-s) > 1e-6*s {
+		t.Errorf("running mean %.17g std %.17g, two-pass %.17g %.17g", r.Mean, r.Std, m, s)
+	}
 }

@@ -94,6 +94,10 @@ func quoted(s string) string {
 
 // elasticityPoints returns x0 followed, for each input i, by x0 with x_i e^h and x_i e^−h.
 func elasticityPoints(x0 []float64, h float64) [][]float64 {
+	// A hand-written central difference, not gonum's diff/fd: all points are evaluated at once
+	// in parallel through sweep.Run (fd evaluates serially or with its own concurrency), an error
+	// names the input and point that failed, and the steps are in ln x (x e^±h), where fd steps
+	// in x.
 	pts := [][]float64{slices.Clone(x0)}
 	for i := range x0 {
 		for _, s := range []float64{h, -h} {
@@ -202,27 +206,8 @@ type SensitivityResult struct {
 // deviation that is not finite and >= 0, and for a nil f.
 func (s Sensitivity) Run(f func(x []float64) (float64, error)) (SensitivityResult, error) {
 	const ctx = "uncertainty: Sensitivity"
-	if err := validInputs(ctx, s.Inputs); err != nil {
-		return SensitivityResult{}, err
-	}
-	n := len(s.Inputs)
-	names := make([]string, n)
-	for i, in := range s.Inputs {
-		names[i] = in.Name
-	}
-	x0 := slices.Clone(s.Nominal)
-	switch {
-	case x0 == nil:
-		x0 = make([]float64, n)
-		for i, in := range s.Inputs {
-			x0[i] = in.Dist.Quantile(0.5)
-		}
-	case len(x0) != n:
-		return SensitivityResult{}, fmt.Errorf("%s: %d Nominal values for %d Inputs", ctx, len(x0), n)
-	}
-	h, err := validLocal(ctx, f, x0, names, s.RelStep)
-	if err != nil {
-		return SensitivityResult{}, err
+	if len(s.Inputs) == 0 {
+		return SensitivityResult{}, fmt.Errorf("%s: Inputs is empty (no uncertain input)", ctx)
 	}
 	lo, hi := s.Low, s.High
 	if lo == 0 {
@@ -234,23 +219,54 @@ func (s Sensitivity) Run(f func(x []float64) (float64, error)) (SensitivityResul
 	if !(lo > 0 && lo < hi && hi < 1) {
 		return SensitivityResult{}, fmt.Errorf("%s: want 0 < Low < High < 1 (0: %g and %g), got Low = %g, High = %g", ctx, float64(defaultLow), float64(defaultHigh), s.Low, s.High)
 	}
+	// The quantiles used, in increasing order: each input's Low, median and High.
+	ps := []float64{lo, 0.5, hi}
+	if hi <= 0.5 {
+		ps = []float64{lo, hi, 0.5}
+	} else if lo >= 0.5 {
+		ps = []float64{0.5, lo, hi}
+	}
+	qs, err := validInputs(ctx, s.Inputs, ps)
+	if err != nil {
+		return SensitivityResult{}, err
+	}
+	at := func(i int, p float64) float64 { return qs[i][slices.Index(ps, p)] }
+	n := len(s.Inputs)
+	names := make([]string, n)
+	for i, in := range s.Inputs {
+		names[i] = in.Name
+	}
+	x0 := slices.Clone(s.Nominal)
+	switch {
+	case x0 == nil:
+		x0 = make([]float64, n)
+		for i := range s.Inputs {
+			x0[i] = at(i, 0.5)
+		}
+	case len(x0) != n:
+		return SensitivityResult{}, fmt.Errorf("%s: %d Nominal values for %d Inputs", ctx, len(x0), n)
+	}
+	h, err := validLocal(ctx, f, x0, names, s.RelStep)
+	if err != nil {
+		return SensitivityResult{}, err
+	}
 	effects := make([]Effect, n)
 	pts := elasticityPoints(x0, h)
 	for i, in := range s.Inputs {
-		sd := in.Dist.StdDev()
-		if err := check.NonNegative(ctx, "standard deviation of input "+quoted(in.Name), sd, ""); err != nil {
+		sd, err := distCall(ctx, i, in, "StdDev()", in.Dist.StdDev)
+		if err != nil {
 			return SensitivityResult{}, err
 		}
-		e := Effect{Name: in.Name, Unit: in.Unit, Index: i, X0: x0[i], XLow: in.Dist.Quantile(lo), XHigh: in.Dist.Quantile(hi), RelSigma: sd / math.Abs(x0[i])}
+		if sd < 0 {
+			return SensitivityResult{}, fmt.Errorf("%s: Inputs[%d] (%s): the distribution's standard deviation is %g; want >= 0 (check its parameters)", ctx, i, quoted(in.Name), sd)
+		}
+		e := Effect{Name: in.Name, Unit: in.Unit, Index: i, X0: x0[i], XLow: at(i, lo), XHigh: at(i, hi), RelSigma: sd / math.Abs(x0[i])}
 		for _, x := range []float64{e.XLow, e.XHigh} {
-			if math.IsNaN(x) || math.IsInf(x, 0) {
-				return SensitivityResult{}, fmt.Errorf("%s: input %s: its distribution gives %g at the quantiles %g, %g; want finite", ctx, quoted(in.Name), x, lo, hi)
-			}
 			p := slices.Clone(x0)
 			p[i] = x
 			pts = append(pts, p)
 		}
-		if err := check.Result(ctx, "relative standard deviation of input "+quoted(in.Name), e.RelSigma, ""); err != nil {
+		if err := check.Result(ctx, fmt.Sprintf("relative standard deviation of Inputs[%d] (%s)", i, quoted(in.Name)), e.RelSigma, ""); err != nil {
 			return SensitivityResult{}, err
 		}
 		effects[i] = e
@@ -270,6 +286,9 @@ func (s Sensitivity) Run(f func(x []float64) (float64, error)) (SensitivityResul
 		e.Low, e.High = vals[1+2*n+2*i], vals[2+2*n+2*i]
 		e.Swing = math.Abs(e.High - e.Low)
 		sum += (e.Elasticity * e.RelSigma) * (e.Elasticity * e.RelSigma)
+	}
+	if math.IsInf(sum, 0) || math.IsNaN(sum) {
+		return SensitivityResult{}, fmt.Errorf("%s: the first-order variance Σ (Elasticity·RelSigma)² is %g; want finite (an input with a huge elasticity or relative spread; use a larger RelStep or smaller spreads)", ctx, sum)
 	}
 	if sum > 0 {
 		for i := range effects {

@@ -131,7 +131,7 @@ func TestSensitivityErrors(t *testing.T) {
 		{uncertainty.Sensitivity{Inputs: in, Nominal: []float64{0}}, `"w" is 0`},
 		{uncertainty.Sensitivity{Inputs: in, Low: 0.9}, "Low"},
 		{uncertainty.Sensitivity{Inputs: in, High: 1}, "High"},
-		{uncertainty.Sensitivity{Inputs: []uncertainty.Input{{Name: "w", Dist: distuv.Normal{Mu: 1, Sigma: -1}}}}, "standard deviation"},
+		{uncertainty.Sensitivity{Inputs: []uncertainty.Input{{Name: "w", Dist: distuv.Normal{Mu: 1, Sigma: -1}}}}, "non-decreasing"},
 		{uncertainty.Sensitivity{Inputs: in, Low: 0.2}, `input "w" = 0.579`},
 	} {
 		if _, err := c.s.Run(f); err == nil || !strings.Contains(err.Error(), c.want) {

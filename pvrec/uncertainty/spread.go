@@ -24,9 +24,9 @@ type SpreadResult struct {
 	Min, Max        float64        // smallest and largest result of the successful members
 	MinIndex        int            // index of the (first) member with Min
 	MaxIndex        int            // index of the (first) member with Max
-	Default         int            // index of the default member (the first with Member.Default); −1 if there is none or it failed
-	DefaultValue    float64        // the default member's result; 0 if Default is −1
-	DefaultRank     int            // 1 + the number of successful members with a smaller result (1: the default is the smallest); 0 if Default is −1
+	DefaultIndex    int            // index of the default member (the first with Member.Default); −1 if there is none or it failed
+	DefaultValue    float64        // the default member's result; 0 if DefaultIndex is −1
+	DefaultRank     int            // 1 + the number of successful members with a smaller result (1: the default is the smallest); 0 if DefaultIndex is −1
 	DefaultPosition float64        // (DefaultValue − Min)/(Max − Min), in [0, 1]; 0 if Max = Min or Default is −1
 	Failed          int            // members that returned an error
 	Failures        []Failure      // the failed members grouped by message (numbers aside), most frequent first
@@ -54,7 +54,7 @@ func Spread(members []Member, workers int, f func(Member) (float64, error)) (Spr
 	vals, errs := sweep.Run(len(members), workers, func(i int) (float64, error) {
 		return evaluate(func() (float64, error) { return f(members[i]) })
 	})
-	r := SpreadResult{Members: make([]MemberResult, len(members)), Default: -1, MinIndex: -1, MaxIndex: -1}
+	r := SpreadResult{Members: make([]MemberResult, len(members)), DefaultIndex: -1, MinIndex: -1, MaxIndex: -1}
 	def := -1
 	for i, m := range members {
 		mr := MemberResult{Name: m.Name, Default: m.Default, Value: vals[i]}
@@ -83,7 +83,7 @@ func Spread(members []Member, workers int, f func(Member) (float64, error)) (Spr
 		return r, fmt.Errorf("%w: all %d members of the model family failed (first: %s)", ErrTooFewSuccesses, len(members), r.Failures[0].Message)
 	}
 	if def >= 0 && r.Members[def].Err == nil {
-		r.Default, r.DefaultValue, r.DefaultRank = def, r.Members[def].Value, 1
+		r.DefaultIndex, r.DefaultValue, r.DefaultRank = def, r.Members[def].Value, 1
 		for _, m := range r.Members {
 			if m.Err == nil && m.Value < r.DefaultValue {
 				r.DefaultRank++
@@ -104,14 +104,14 @@ func (r SpreadResult) String() string {
 	fmt.Fprintf(&b, "model spread: %d members, %d succeeded, %d failed\n", len(r.Members), r.Succeeded, r.Failed)
 	if r.Succeeded > 0 {
 		fmt.Fprintf(&b, "range %.6g … %.6g", r.Min, r.Max)
-		if r.Default >= 0 {
+		if r.DefaultIndex >= 0 {
 			fmt.Fprintf(&b, "; default %.6g, rank %d of %d, position %.2f", r.DefaultValue, r.DefaultRank, r.Succeeded, r.DefaultPosition)
 		}
 		b.WriteString("\n")
 	}
 	for i, m := range r.Members {
 		var marks []string
-		if i == r.Default {
+		if i == r.DefaultIndex {
 			marks = append(marks, "default")
 		}
 		if i == r.MinIndex {

@@ -74,8 +74,8 @@ func TestSpreadJ0(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if r.Default != 0 || r.DefaultValue != def.J0 {
-			t.Errorf("default member %d J0 %v, j0.DefaultModels %v", r.Default, r.DefaultValue, def.J0)
+		if r.DefaultIndex != 0 || r.DefaultValue != def.J0 {
+			t.Errorf("default member %d J0 %v, j0.DefaultModels %v", r.DefaultIndex, r.DefaultValue, def.J0)
 		}
 		if !(r.DefaultRank >= 1 && r.DefaultRank <= r.Succeeded && r.DefaultPosition >= 0 && r.DefaultPosition <= 1) {
 			t.Errorf("default rank %d, position %g", r.DefaultRank, r.DefaultPosition)
@@ -120,8 +120,8 @@ func TestSpreadFailures(t *testing.T) {
 			t.Errorf("failures %v", r.Failures)
 		}
 		// Successes m0, m2, m4, m7, m9: values 2, 4, 6, 9, 11; the default m4 is third.
-		if r.Min != 2 || r.Max != 11 || r.Default != 4 || r.DefaultValue != 6 || r.DefaultRank != 3 || r.DefaultPosition != 4.0/9 {
-			t.Errorf("range %g … %g, default %d = %g rank %d position %g", r.Min, r.Max, r.Default, r.DefaultValue, r.DefaultRank, r.DefaultPosition)
+		if r.Min != 2 || r.Max != 11 || r.DefaultIndex != 4 || r.DefaultValue != 6 || r.DefaultRank != 3 || r.DefaultPosition != 4.0/9 {
+			t.Errorf("range %g … %g, default %d = %g rank %d position %g", r.Min, r.Max, r.DefaultIndex, r.DefaultValue, r.DefaultRank, r.DefaultPosition)
 		}
 		if s := r.String(); !strings.Contains(s, "default") || !strings.Contains(s, "3 × (first at 1): invalid member") {
 			t.Errorf("String:\n%s", s)

@@ -566,11 +566,17 @@ func fixtures(t *testing.T) []any {
 	members := must(uncertainty.Members(uncCase)).([]uncertainty.Member)
 	uncInputs := []uncertainty.Input{{Name: "w", Unit: "cm", Dist: distuv.Normal{Mu: 180e-4, Sigma: 5e-4}}, {Name: "s", Unit: "cm/s", Dist: distuv.LogNormal{Mu: 2, Sigma: 0.2}}}
 	mc := uncertainty.MonteCarlo{Inputs: uncInputs, Seed: 1, MaxSamples: 300}
+	badInputs := []uncertainty.Input{{Name: "beta", Dist: distuv.Beta{Alpha: 0, Beta: 1}}, {Name: "gamma", Dist: distuv.Gamma{Alpha: -1, Beta: 1}}, {Name: "reversed", Dist: distuv.Uniform{Min: 2, Max: 1}}}
 	mcResult := must(mc.Run(func(x []float64) (float64, error) { return x[0] / x[1], nil })).(uncertainty.MCResult)
 	spreadResult := must(uncertainty.Spread(members[:4], 0, func(m uncertainty.Member) (float64, error) { return float64(len(m.Name)), nil })).(uncertainty.SpreadResult)
 	return []any{
 		uncCase, members, members[0], uncInputs, uncInputs[0], mc, mcResult, spreadResult,
 		uncertainty.Sensitivity{Inputs: uncInputs}, distuv.Normal{Mu: 1, Sigma: 0.1},
+		// Distributions with invalid parameters (gonum's distuv panics on the first two), after
+		// the good fixtures of each type.
+		uncertainty.MonteCarlo{Inputs: badInputs, MaxSamples: 300}, uncertainty.Sensitivity{Inputs: badInputs},
+		uncertainty.MonteCarlo{Inputs: badInputs[1:], MaxSamples: 300}, uncertainty.Sensitivity{Inputs: badInputs[2:]},
+		badInputs, distuv.Beta{Alpha: 0, Beta: 1}, distuv.Gamma{Alpha: -1, Beta: 1}, distuv.Uniform{Min: 2, Max: 1},
 		sample, trace, analysis, result, table, optics, jv, lifetime.J0sOptions{},
 		specCurve, []spectroscopy.Curve{specCurve}, specOpt, specResult, specLine, spectroscopy.Start{Et: 0.3, K: 2},
 		design, device, design.Base, design.Front[0],
