@@ -53,7 +53,7 @@ func BenchmarkMonteCarloJ0(b *testing.B) {
 	}
 }
 
-// BenchmarkSpreadJ0: the model spread (64 members) of the J0 of a heavily doped emitter at
+// BenchmarkSpreadJ0: the model spread (20 members) of the J0 of a heavily doped emitter at
 // 300 K on all cores (issue target: under 50 ms). Run with:
 // go test -run NONE -bench SpreadJ0 -cpu 2 ./pvrec/uncertainty/
 func BenchmarkSpreadJ0(b *testing.B) {
