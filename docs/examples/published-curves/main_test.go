@@ -82,8 +82,8 @@ func TestIntrinsicMonotone(t *testing.T) {
 //     et al., Phys. Rev. B 86, 165202 (2012); tolerance 1e-3 as in recomb's TestRichterLimits,
 //     here above the neglected terms Nd/Δn = 1e-4 and Cn g_eeh n0/(C Δn) ≈ 3e-4;
 //   - at Δn = 1e16 cm^-3, C within 10 % of the ambipolar Auger coefficient 1.66e-30 cm⁶/s
-//     measured in high injection on lightly doped silicon by R. A. Sinton and R. M. Swanson,
-//     IEEE Trans. Electron Devices 34, 1380 (1987) (value from memory; 10 % is about the
+//     measured in high injection on lightly doped silicon, IEEE Trans. Electron Devices 34,
+//     1380 (1987), as cited in recomb's TestRichterLimits (value from memory; 10 % is about the
 //     spread of high-injection Auger measurements, as in TestRichterLimits).
 func TestIntrinsicHighInjection(t *testing.T) {
 	const bLow = 4.73e-15 // cm³/s, Trupke et al. 2003
@@ -99,7 +99,7 @@ func TestIntrinsicHighInjection(t *testing.T) {
 		t.Errorf("Δn = 1e18: C = %g cm⁶/s, want Richter's 3.0e-29 Δn^-0.08 = %g", c(1), want)
 	}
 	if rel(c(0), 1.66e-30) > 0.10 {
-		t.Errorf("Δn = 1e16: C = %g cm⁶/s, want 1.66e-30 within 10 %% (Sinton and Swanson 1987)", c(0))
+		t.Errorf("Δn = 1e16: C = %g cm⁶/s, want 1.66e-30 within 10 %% (high-injection measurement, 1987)", c(0))
 	}
 }
 
