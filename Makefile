@@ -63,8 +63,7 @@ setup-tex:
 		echo "setup: installing Debian's texlive-latex-base and texlive-pictures"; \
 		apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends texlive-latex-base texlive-pictures >/dev/null; \
 	else \
-		echo "setup: please install Debian's texlive-latex-base and texlive-pictures (sudo apt-get install texlive-latex-base texlive-pictures), then rerun"; \
-		exit 1; \
+		echo "setup: pdflatex or pgf missing; the TeX-export test will be skipped (sudo apt-get install texlive-latex-base texlive-pictures to run it)"; \
 	fi
 
 # GoNB (pinned in go.mod), goimports and gopls, and the GoNB kernel registration.

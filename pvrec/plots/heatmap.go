@@ -280,8 +280,8 @@ func (k *contours) labels(c draw.Canvas, q *plot.Plot, sty text.Style, g gridXYZ
 	var placed []vg.Rectangle
 	nx, ny := g.Dims()
 	for li, l := range levels {
-		text := levelLabel(k.levels[li], k.logZ)
-		w, h := sty.Width(text)+2*pad, sty.Height(text)+pad
+		label := levelLabel(k.levels[li], k.logZ)
+		w, h := sty.Width(label)+2*pad, sty.Height(label)+pad
 		var best vg.Rectangle
 		bestD := vg.Length(math.Inf(1))
 		try := func(x, y float64) {
@@ -321,7 +321,7 @@ func (k *contours) labels(c draw.Canvas, q *plot.Plot, sty text.Style, g gridXYZ
 		placed = append(placed, best)
 		c.SetColor(color.White)
 		c.Fill(best.Path())
-		c.FillText(sty, vg.Point{X: (best.Min.X + best.Max.X) / 2, Y: (best.Min.Y + best.Max.Y) / 2}, text)
+		c.FillText(sty, vg.Point{X: (best.Min.X + best.Max.X) / 2, Y: (best.Min.Y + best.Max.Y) / 2}, label)
 	}
 }
 

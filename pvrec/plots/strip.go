@@ -25,7 +25,7 @@ type StripMember struct {
 // e.g. the model sets that vary one model.
 type StripGroup struct {
 	Label   string // heading above the group's rows, e.g. "BGN varied"; needed when there are several groups
-	Members []StripMember
+	Members []StripMember // the group's rows, from top to bottom; at least one
 }
 
 // stripLabelWidth is the width beyond which Strip breaks a plain member label into lines,
