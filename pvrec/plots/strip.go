@@ -24,7 +24,7 @@ type StripMember struct {
 // StripGroup is a set of members drawn together in one colour and marker of the house cycle,
 // e.g. the model sets that vary one model.
 type StripGroup struct {
-	Label   string // heading above the group's rows, e.g. "BGN varied"; needed when there are several groups
+	Label   string        // heading above the group's rows, e.g. "BGN varied"; needed when there are several groups
 	Members []StripMember // the group's rows, from top to bottom; at least one
 }
 
